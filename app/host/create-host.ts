@@ -1,0 +1,99 @@
+import { join } from 'node:path';
+import { channels, events, type AppInfo, type CallContext, type GazeloomHandlers, type Result } from '../contract';
+import { createDispatcher } from '../contract/dispatcher';
+import { createEventHub, type EventSink } from '../contract/event-hub';
+import type { HostClock } from '../core/clock/host-clock';
+import type { StageStatus } from '../contract';
+import { dataFolderJob } from './data-folder-job';
+import { FirstRunQueue, type FirstRunJob } from './first-run';
+import type { HostLog } from './log';
+import type { StagePresenter } from './stage-presenter';
+import { appVersion } from './version';
+
+export interface HostOptions {
+  readonly mode: AppInfo['mode'];
+  readonly dataDir: string;
+  readonly clock: HostClock;
+  readonly log: HostLog;
+  readonly stage: StagePresenter;
+  /** Extra first-run jobs (the demo study, for example); the data folder job always runs first. */
+  readonly firstRunJobs?: readonly FirstRunJob[];
+}
+
+export interface HostConnection {
+  readonly id: string;
+  dispatch(channel: string, payload: unknown): Promise<Result<unknown>>;
+  detach(): void;
+}
+
+export interface Host {
+  readonly info: AppInfo;
+  readonly dataDir: string;
+  /** A page (console or stage) connects; `send` delivers host events to it. */
+  attach(page: CallContext['page'], send: EventSink['send']): HostConnection;
+  startFirstRun(): Promise<void>;
+}
+
+/** The composition root of the host: every service, wired to the contract. */
+export function createHost(options: HostOptions): Host {
+  const { clock, log } = options;
+  const hub = createEventHub(events);
+  const firstRun = new FirstRunQueue(log, (task) => hub.emit('onFirstRunProgress', task));
+  firstRun.add(dataFolderJob(options.dataDir));
+  for (const job of options.firstRunJobs ?? []) firstRun.add(job);
+
+  const info: AppInfo = {
+    name: 'Gazeloom',
+    version: appVersion(),
+    mode: options.mode,
+    platform: process.platform,
+    dataDir: options.dataDir,
+    startedAt: new Date().toISOString(),
+  };
+  const stageStatuses = new Map<string, StageStatus>();
+
+  const handlers: GazeloomHandlers = {
+    getAppInfo: () => info,
+    ping: () => {
+      const hostReceivedNs = clock.nowNs();
+      return { hostReceivedNs, hostSentNs: clock.nowNs() };
+    },
+    listDisplays: () => options.stage.listDisplays(),
+    openStage: ({ displayId }) => options.stage.open(displayId),
+    reportStageStatus: (status, context) => {
+      stageStatuses.set(context.connectionId, status);
+      if (!status.visible) log.warn('stage.hidden', { connection: context.connectionId });
+      hub.emit('onStageStatus', { ...status, connected: true });
+      return {};
+    },
+    getFirstRunStatus: () => ({ tasks: firstRun.status() }),
+  };
+  const dispatch = createDispatcher(channels, handlers, log);
+
+  let nextConnection = 1;
+  return {
+    info,
+    dataDir: options.dataDir,
+    attach(page, send) {
+      const id = `${page}-${nextConnection++}`;
+      const removeSink = hub.addSink({ page, send });
+      log.info('page.attached', { connection: id });
+      return {
+        id,
+        dispatch: (channel, payload) => dispatch(channel, payload, { page, connectionId: id }),
+        detach() {
+          removeSink();
+          const last = stageStatuses.get(id);
+          if (last) {
+            stageStatuses.delete(id);
+            hub.emit('onStageStatus', { ...last, visible: false, connected: false });
+          }
+          log.info('page.detached', { connection: id });
+        },
+      };
+    },
+    startFirstRun: () => firstRun.start(),
+  };
+}
+
+export const hostLogFile = (dataDir: string): string => join(dataDir, 'logs', 'host.log');
