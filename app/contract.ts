@@ -4,9 +4,13 @@
  * validate against it (app/contract/client.ts in the renderer, app/contract/dispatcher.ts
  * in the host). Channels are verbs the renderer calls; events are named `onSomething`.
  */
+import { z } from 'zod';
 import { channel, hostEvent, type ClientApi, type HostHandlers } from './contract/define';
 import { empty } from './contract/schemas/common';
 import * as app from './contract/schemas/app';
+import * as files from './contract/schemas/files';
+import * as jobs from './contract/schemas/jobs';
+import * as stimuli from './contract/schemas/stimuli';
 
 export const channels = {
   getAppInfo: channel({ request: empty, response: app.appInfo, summary: 'Version, mode and data folder of the running host' }),
@@ -15,11 +19,23 @@ export const channels = {
   openStage: channel({ request: app.openStageRequest, response: app.openStageResponse, summary: 'Show the stage on a display' }),
   reportStageStatus: channel({ request: app.stageStatus.strict(), response: empty, summary: 'The stage says whether it is visible and how it draws' }),
   getFirstRunStatus: channel({ request: empty, response: app.firstRunStatus, summary: 'Background first-run work and its progress' }),
+  listJobs: channel({ request: empty, response: z.object({ jobs: z.array(jobs.jobStatus) }), summary: 'Long host work and its progress' }),
+  listDirectory: channel({ request: files.listDirectoryRequest, response: files.directoryListing, summary: 'One folder of the host machine, for choosing files to import' }),
+  listStimuli: channel({ request: empty, response: z.object({ stimuli: z.array(stimuli.stimulusMeta) }), summary: 'The stimulus library' }),
+  getStimulusStats: channel({ request: stimuli.stimulusId, response: stimuli.eventStats, summary: 'Statistics of one stimulus' }),
+  importStimulus: channel({ request: stimuli.importRequest, response: jobs.jobStarted, summary: 'Import an event file from the host into the library (a job)' }),
+  operateOnStimulus: channel({ request: stimuli.operateRequest, response: jobs.jobStarted, summary: 'Trim, crop or filter a stimulus into a new one (a job)' }),
+  updateStimulus: channel({ request: stimuli.updateStimulusRequest, response: stimuli.stimulusMeta, summary: 'Rename a stimulus, edit its notes or flash mark' }),
+  removeStimulus: channel({ request: stimuli.stimulusId, response: empty, summary: 'Move a stimulus to the library trash' }),
+  restoreStimulus: channel({ request: stimuli.stimulusId, response: stimuli.stimulusMeta, summary: 'Bring a removed stimulus back' }),
+  readStimulusEvents: channel({ request: stimuli.eventWindowRequest, response: stimuli.eventWindow, summary: 'Events of a stimulus in a time window, for previews' }),
 } as const;
 
 export const events = {
   onFirstRunProgress: hostEvent({ payload: app.firstRunTask, audience: 'console', summary: 'A first-run task moved on' }),
   onStageStatus: hostEvent({ payload: app.stageStatusEvent, audience: 'console', summary: 'The stage connected, disconnected, or changed visibility' }),
+  onJobProgress: hostEvent({ payload: jobs.jobStatus, audience: 'console', summary: 'A host job moved on, finished or failed' }),
+  onStimuliChanged: hostEvent({ payload: z.object({ ids: z.array(z.string()) }), audience: 'console', summary: 'Stimuli were added, changed or removed' }),
 } as const;
 
 export const contract = { channels, events } as const;
@@ -31,4 +47,7 @@ export type GazeloomHandlers = HostHandlers<Channels>;
 
 export * from './contract/result';
 export type { CallContext } from './contract/define';
+export type { JobStatus } from './contract/schemas/jobs';
+export type { DirectoryListing } from './contract/schemas/files';
+export type { StimulusMeta, EventStats, StimulusOperation } from './contract/schemas/stimuli';
 export type { AppInfo, DisplayInfo, StageStatus, StageStatusEvent, FirstRunTask } from './contract/schemas/app';

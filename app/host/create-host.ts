@@ -1,13 +1,18 @@
 import { join } from 'node:path';
-import { channels, events, type AppInfo, type CallContext, type GazeloomHandlers, type Result } from '../contract';
+import { channels, events, type AppInfo, type CallContext, type GazeloomHandlers, type Result, type StageStatus } from '../contract';
 import { createDispatcher } from '../contract/dispatcher';
 import { createEventHub, type EventSink } from '../contract/event-hub';
 import type { HostClock } from '../core/clock/host-clock';
-import type { StageStatus } from '../contract';
 import { dataFolderJob } from './data-folder-job';
 import { FirstRunQueue, type FirstRunJob } from './first-run';
+import { appHandlers } from './handlers/app-handlers';
+import { stimulusHandlers } from './handlers/stimulus-handlers';
+import { JobRunner } from './jobs';
 import type { HostLog } from './log';
 import type { StagePresenter } from './stage-presenter';
+import { demoClipsJob } from './stimuli/demo-clips';
+import { StimulusService } from './stimuli/stimulus-service';
+import { StimulusStore } from './stimuli/stimulus-store';
 import { appVersion } from './version';
 
 export interface HostOptions {
@@ -16,7 +21,9 @@ export interface HostOptions {
   readonly clock: HostClock;
   readonly log: HostLog;
   readonly stage: StagePresenter;
-  /** Extra first-run jobs (the demo study, for example); the data folder job always runs first. */
+  /** Skip building the demo clips and study on first run (tests, --no-demo, GAZELOOM_NO_DEMO=1). */
+  readonly noDemo?: boolean;
+  /** Extra first-run jobs; the data folder job always runs first. */
   readonly firstRunJobs?: readonly FirstRunJob[];
 }
 
@@ -39,7 +46,13 @@ export function createHost(options: HostOptions): Host {
   const { clock, log } = options;
   const hub = createEventHub(events);
   const firstRun = new FirstRunQueue(log, (task) => hub.emit('onFirstRunProgress', task));
+  const jobs = new JobRunner((status) => hub.emit('onJobProgress', status), log);
+  const store = new StimulusStore(options.dataDir, log);
+  const changed = (ids: string[]) => hub.emit('onStimuliChanged', { ids });
+  const stimuli = new StimulusService(store, jobs, changed);
+
   firstRun.add(dataFolderJob(options.dataDir));
+  if (!options.noDemo) firstRun.add(demoClipsJob(store, changed));
   for (const job of options.firstRunJobs ?? []) firstRun.add(job);
 
   const info: AppInfo = {
@@ -51,22 +64,9 @@ export function createHost(options: HostOptions): Host {
     startedAt: new Date().toISOString(),
   };
   const stageStatuses = new Map<string, StageStatus>();
-
   const handlers: GazeloomHandlers = {
-    getAppInfo: () => info,
-    ping: () => {
-      const hostReceivedNs = clock.nowNs();
-      return { hostReceivedNs, hostSentNs: clock.nowNs() };
-    },
-    listDisplays: () => options.stage.listDisplays(),
-    openStage: ({ displayId }) => options.stage.open(displayId),
-    reportStageStatus: (status, context) => {
-      stageStatuses.set(context.connectionId, status);
-      if (!status.visible) log.warn('stage.hidden', { connection: context.connectionId });
-      hub.emit('onStageStatus', { ...status, connected: true });
-      return {};
-    },
-    getFirstRunStatus: () => ({ tasks: firstRun.status() }),
+    ...appHandlers({ info, clock, log, stage: options.stage, hub, firstRun, stageStatuses }),
+    ...stimulusHandlers({ store, service: stimuli, jobs, changed }),
   };
   const dispatch = createDispatcher(channels, handlers, log);
 

@@ -20,7 +20,8 @@ void app.whenReady().then(() => {
   guardSession(session.defaultSession, log);
   protocol.handle('app', rendererProtocolHandler(join(__dirname, '..', 'renderer')));
   const windows = new WindowManager(join(__dirname, '..', 'preload', 'preload.cjs'), screen);
-  const host = createHost({ mode: 'electron', dataDir, clock: createMonotonicClock(), log, stage: windows.stagePresenter });
+  const noDemo = process.env.GAZELOOM_NO_DEMO === '1' || process.argv.includes('--no-demo');
+  const host = createHost({ mode: 'electron', dataDir, clock: createMonotonicClock(), log, stage: windows.stagePresenter, noDemo });
   windows.bind(host);
   registerContractIpc(ipcMain, Object.keys(channels), windows.connectionFor, log);
   windows.openConsole();

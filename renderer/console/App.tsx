@@ -1,23 +1,39 @@
 import { useHost } from './host-context';
-import { FirstRunPanel } from './overview/FirstRunPanel';
-import { HostPanel } from './overview/HostPanel';
-import { StagePanel } from './overview/StagePanel';
+import { JobsTray } from './jobs/JobsTray';
+import { Overview } from './overview/Overview';
+import { StimulusLibrary } from './stimuli/StimulusLibrary';
+import { screens, useRoute } from './use-route';
 
 export function App() {
   const { connection } = useHost();
+  const [screen, go] = useRoute();
   return (
     <div className="app">
       <header className="app-header">
         <h1>Gazeloom</h1>
+        <nav className="screens" aria-label="Screens">
+          {screens.map((s) => (
+            <a
+              key={s.id}
+              href={`#/${s.id}`}
+              aria-current={screen === s.id ? 'page' : undefined}
+              title={`Alt+${s.key}`}
+              onClick={(event) => {
+                event.preventDefault();
+                go(s.id);
+              }}
+            >
+              {s.label}
+            </a>
+          ))}
+        </nav>
         <span className={`connection connection-${connection}`} role="status" aria-live="polite">
           {connection === 'open' ? 'host connected' : connection === 'connecting' ? 'connecting to host…' : 'host disconnected: reconnecting'}
         </span>
       </header>
-      <main className="overview" aria-label="Overview">
-        <HostPanel />
-        <StagePanel />
-        <FirstRunPanel />
-      </main>
+      {screen === 'overview' && <Overview />}
+      {screen === 'stimuli' && <StimulusLibrary />}
+      <JobsTray />
     </div>
   );
 }

@@ -19,7 +19,7 @@ export async function main(argv: readonly string[]): Promise<void> {
       port: { type: 'string', default: process.env.GAZELOOM_PORT ?? '0' },
       'data-dir': { type: 'string' },
       'renderer-dir': { type: 'string' },
-      'no-demo': { type: 'boolean', default: false },
+      'no-demo': { type: 'boolean', default: process.env.GAZELOOM_NO_DEMO === '1' },
       'no-open': { type: 'boolean', default: false },
     },
     strict: true,
@@ -29,7 +29,7 @@ export async function main(argv: readonly string[]): Promise<void> {
   const dataDir = values['data-dir'] ?? defaultDataDir();
   const rendererDir = values['renderer-dir'] ?? fileURLToPath(new URL('../renderer', import.meta.url));
   const log = createHostLog({ file: hostLogFile(dataDir), echo: true });
-  const mode = await startBrowserMode({ port, dataDir, rendererDir, clock: createMonotonicClock(), log });
+  const mode = await startBrowserMode({ port, dataDir, rendererDir, clock: createMonotonicClock(), log, noDemo: values['no-demo'] });
   process.stdout.write(`Gazeloom is running in browser mode at ${mode.url}\n`);
   if (!values['no-open']) process.stdout.write(`(${openInChromium(mode.url)})\n`);
   void mode.host.startFirstRun();

@@ -15,6 +15,7 @@ export interface BrowserModeOptions {
   readonly clock: HostClock;
   readonly log: HostLog;
   readonly firstRunJobs?: readonly FirstRunJob[];
+  readonly noDemo?: boolean;
   /** Fixed token for tests that need to know it in advance; random otherwise. */
   readonly token?: string;
 }
@@ -46,6 +47,7 @@ export async function startBrowserMode(options: BrowserModeOptions): Promise<Bro
       log: options.log,
       stage: browserStagePresenter(() => `${origin}/stage/`),
       firstRunJobs: options.firstRunJobs,
+      noDemo: options.noDemo,
     });
   } catch (error) {
     server.close();

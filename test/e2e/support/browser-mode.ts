@@ -15,7 +15,7 @@ export interface RunningHost {
 /** Starts the built browser mode on a free port with a fresh data folder, as a user would. */
 export async function startHost(extraArgs: readonly string[] = []): Promise<RunningHost> {
   const dataDir = mkdtempSync(join(tmpdir(), 'gazeloom-e2e-'));
-  const child = spawn(process.execPath, ['dist/host/browser-mode.mjs', '--port', '0', '--data-dir', dataDir, '--no-open', ...extraArgs], {
+  const child = spawn(process.execPath, ['dist/host/browser-mode.mjs', '--port', '0', '--data-dir', dataDir, '--no-open', '--no-demo', ...extraArgs], {
     env: { ...process.env, BROWSER: 'none' },
     stdio: ['ignore', 'pipe', 'pipe'],
   });

@@ -24,10 +24,22 @@ describe('the preload bridge', () => {
           "openStage",
           "reportStageStatus",
           "getFirstRunStatus",
+          "listJobs",
+          "listDirectory",
+          "listStimuli",
+          "getStimulusStats",
+          "importStimulus",
+          "operateOnStimulus",
+          "updateStimulus",
+          "removeStimulus",
+          "restoreStimulus",
+          "readStimulusEvents",
         ],
         "events": [
           "onFirstRunProgress",
           "onStageStatus",
+          "onJobProgress",
+          "onStimuliChanged",
         ],
       }
     `);

@@ -1,0 +1,40 @@
+import type { GazeloomHandlers, StageStatus } from '../../contract';
+import type { EventHub } from '../../contract/event-hub';
+import type { Events, AppInfo } from '../../contract';
+import type { HostClock } from '../../core/clock/host-clock';
+import type { FirstRunQueue } from '../first-run';
+import type { HostLog } from '../log';
+import type { StagePresenter } from '../stage-presenter';
+
+type AppChannels = 'getAppInfo' | 'ping' | 'listDisplays' | 'openStage' | 'reportStageStatus' | 'getFirstRunStatus';
+
+interface Deps {
+  readonly info: AppInfo;
+  readonly clock: HostClock;
+  readonly log: HostLog;
+  readonly stage: StagePresenter;
+  readonly hub: EventHub<Events>;
+  readonly firstRun: FirstRunQueue;
+  /** Last status each stage connection reported, by connection id. */
+  readonly stageStatuses: Map<string, StageStatus>;
+}
+
+/** The installation, clocks, displays and the stage's presence. */
+export function appHandlers({ info, clock, log, stage, hub, firstRun, stageStatuses }: Deps): Pick<GazeloomHandlers, AppChannels> {
+  return {
+    getAppInfo: () => info,
+    ping: () => {
+      const hostReceivedNs = clock.nowNs();
+      return { hostReceivedNs, hostSentNs: clock.nowNs() };
+    },
+    listDisplays: () => stage.listDisplays(),
+    openStage: ({ displayId }) => stage.open(displayId),
+    reportStageStatus: (status, context) => {
+      stageStatuses.set(context.connectionId, status);
+      if (!status.visible) log.warn('stage.hidden', { connection: context.connectionId });
+      hub.emit('onStageStatus', { ...status, connected: true });
+      return {};
+    },
+    getFirstRunStatus: () => ({ tasks: firstRun.status() }),
+  };
+}
