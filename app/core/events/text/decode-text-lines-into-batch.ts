@@ -3,7 +3,7 @@ import { decodeTextLines } from './text-range-kernel';
 import type { TextRangeConfig, TextRangeState } from './text-range-types';
 
 /** Events that `bytes` from..to of about this many lines will need room for. */
-export function estimateEventCount(bytes: Uint8Array, from: number, to: number): number {
+function estimateEventCount(bytes: Uint8Array, from: number, to: number): number {
   const sampleEnd = Math.min(to, from + 4096);
   let lines = 0;
   for (let k = from; k < sampleEnd; k++) if (bytes[k] === 10) lines++;

@@ -7,7 +7,7 @@ import { formatTicks, TIME_UNITS, type TextTimeUnit } from './text-time-unit';
 const ROLE_NAMES = ['t', 'x', 'y', 'p'];
 
 /** The fields of a line as a person reads them (the hot loop only points at one). */
-export function splitTextLine(layout: TextLayout, text: string): string[] {
+function splitTextLine(layout: TextLayout, text: string): string[] {
   const line = text.replace(/\r$/, '');
   return layout.format === 'csv' ? line.split(',').map((f) => f.trim()) : line.trim().split(/[ \t\r]+/);
 }

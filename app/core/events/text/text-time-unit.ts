@@ -38,5 +38,3 @@ export function formatTicks(ticks: number, unit: TextTimeUnit): string {
   const fraction = digits.slice(-shift).replace(/0+$/, '');
   return fraction ? `${whole}.${fraction}` : whole;
 }
-
-export const unitLabel = (unit: TextTimeUnit): string => ({ us: 'µs', ns: 'ns', ms: 'ms', s: 's' })[unit];

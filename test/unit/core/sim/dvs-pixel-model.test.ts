@@ -93,7 +93,7 @@ describe('DvsPixelModel against the analytic answers', () => {
   });
 
   it('matches the reference model of t6_dvs.py on a waveform with several crossings per sample, unequal thresholds and a refractory period', () => {
-    const dir = join(__dirname, 'reference');
+    const dir = join(__dirname, '../../../fixtures/sim');
     type Reference = { C_on: number; C_off: number; refractory_s: number; t_s: number[]; intensity: number[]; events: [number, number][] };
     const stored = JSON.parse(readFileSync(join(dir, 'dvs_reference.json'), 'utf8')) as Reference;
     // Debian's python3-numpy recomputes the reference where it is installed (always in CI); the stored copy serves elsewhere.

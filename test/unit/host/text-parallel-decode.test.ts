@@ -4,10 +4,10 @@ import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
 import { build } from 'esbuild';
 import { describe, expect, it } from 'vitest';
-import { concatBatches } from '../../../../app/core/events/event-batch';
-import { EventFormatError } from '../../../../app/core/events/event-format-error';
-import { TextEventDecoder } from '../../../../app/core/events/text/text-event-decoder';
-import { decodeTextFile, type TextFileRun } from '../../../../app/host/events/parallel-text-decode';
+import { concatBatches } from '../../../app/core/events/event-batch';
+import { EventFormatError } from '../../../app/core/events/event-format-error';
+import { TextEventDecoder } from '../../../app/core/events/text/text-event-decoder';
+import { decodeTextFile, type TextFileRun } from '../../../app/host/events/parallel-text-decode';
 
 // The worker decode of a whole file (app/host/events/parallel-text-decode.ts) must say
 // exactly what one streaming decoder says of the same bytes: same events and facts, or
@@ -132,7 +132,7 @@ describe('decodeTextFile with workers', () => {
   it('works from the esbuild bundle, where there is no worker file to load', async () => {
     // Bundled as scripts/build.mjs bundles app/ (platform node, ESM, packages external).
     const entry = join(folder, 'entry.ts');
-    const decoder = resolve(__dirname, '../../../../app/host/events/parallel-text-decode.ts');
+    const decoder = resolve(__dirname, '../../../app/host/events/parallel-text-decode.ts');
     writeFileSync(entry, `import { decodeTextFile } from ${JSON.stringify(decoder)};
 const r = await decodeTextFile(process.argv[2], { file: 'clip.csv' }, { workers: 2 });
 process.stdout.write(JSON.stringify({ n: r.eventCount, lines: r.lineCount, last: r.batch.t[r.eventCount - 1], sum: r.batch.x.reduce((a, b) => a + b, 0) }));`);
