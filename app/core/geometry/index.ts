@@ -1,0 +1,3 @@
+export * from './display-geometry';
+export * from './placement';
+export * from './units';
