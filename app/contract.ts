@@ -10,6 +10,8 @@ import { empty } from './contract/schemas/common';
 import * as app from './contract/schemas/app';
 import * as files from './contract/schemas/files';
 import * as jobs from './contract/schemas/jobs';
+import * as live from './contract/schemas/live';
+import * as stage from './contract/schemas/stage';
 import * as stimuli from './contract/schemas/stimuli';
 
 export const channels = {
@@ -18,6 +20,7 @@ export const channels = {
   listDisplays: channel({ request: empty, response: app.displayList, summary: 'Displays the stage can be shown on' }),
   openStage: channel({ request: app.openStageRequest, response: app.openStageResponse, summary: 'Show the stage on a display' }),
   reportStageStatus: channel({ request: app.stageStatus.strict(), response: empty, summary: 'The stage says whether it is visible and how it draws' }),
+  getStageStatus: channel({ request: empty, response: z.object({ stage: app.stageStatusEvent.nullable() }), summary: 'The stage page connected now, if any' }),
   getFirstRunStatus: channel({ request: empty, response: app.firstRunStatus, summary: 'Background first-run work and its progress' }),
   listJobs: channel({ request: empty, response: z.object({ jobs: z.array(jobs.jobStatus) }), summary: 'Long host work and its progress' }),
   listDirectory: channel({ request: files.listDirectoryRequest, response: files.directoryListing, summary: 'One folder of the host machine, for choosing files to import' }),
@@ -29,6 +32,20 @@ export const channels = {
   removeStimulus: channel({ request: stimuli.stimulusId, response: empty, summary: 'Move a stimulus to the library trash' }),
   restoreStimulus: channel({ request: stimuli.stimulusId, response: stimuli.stimulusMeta, summary: 'Bring a removed stimulus back' }),
   readStimulusEvents: channel({ request: stimuli.eventWindowRequest, response: stimuli.eventWindow, summary: 'Events of a stimulus in a time window, for previews' }),
+  reportFrames: channel({ request: stage.reportFramesRequest, response: empty, summary: 'The stage sends its frame log and clock estimate' }),
+  reportPlayback: channel({ request: stage.playbackReport, response: empty, summary: 'The stage says a clip started, paused, resumed or ended' }),
+  reportMouseGaze: channel({ request: stage.mouseGazeRequest, response: empty, summary: 'Mouse positions on the stage, used as gaze for piloting' }),
+  startRecording: channel({ request: live.startRecordingRequest, response: live.startRecordingResponse, summary: 'Start recording a session from a gaze source' }),
+  stopRecording: channel({ request: empty, response: live.stopRecordingResponse, summary: 'Stop and close the recording' }),
+  playClip: channel({ request: live.playClipRequest, response: z.object({ playbackId: z.string() }), summary: 'Play a stimulus on the stage at true timing' }),
+  pausePlayback: channel({ request: empty, response: empty, summary: 'Pause the clip on the stage' }),
+  resumePlayback: channel({ request: empty, response: empty, summary: 'Resume the paused clip' }),
+  stopPlayback: channel({ request: empty, response: empty, summary: 'Stop the clip and return the stage to grey' }),
+  getLiveStatus: channel({ request: empty, response: live.liveStatus, summary: 'Live monitoring figures of the running recording' }),
+  listRecoveredSessions: channel({ request: empty, response: z.object({ sessions: z.array(live.recoveredSession) }), summary: 'Recordings that did not close, recovered at start' }),
+  resumeRecording: channel({ request: live.resumeRecordingRequest, response: live.startRecordingResponse, summary: 'Append to a recovered recording' }),
+  showTarget: channel({ request: live.showTargetRequest, response: live.showTargetResponse, summary: 'Show a target on the stage (recorded; sent to the tracker bridge)' }),
+  hideTarget: channel({ request: live.hideTargetRequest, response: empty, summary: 'Remove a target from the stage' }),
 } as const;
 
 export const events = {
@@ -36,6 +53,9 @@ export const events = {
   onStageStatus: hostEvent({ payload: app.stageStatusEvent, audience: 'console', summary: 'The stage connected, disconnected, or changed visibility' }),
   onJobProgress: hostEvent({ payload: jobs.jobStatus, audience: 'console', summary: 'A host job moved on, finished or failed' }),
   onStimuliChanged: hostEvent({ payload: z.object({ ids: z.array(z.string()) }), audience: 'console', summary: 'Stimuli were added, changed or removed' }),
+  onStageCommand: hostEvent({ payload: stage.stageCommand, audience: 'stage', summary: 'Play, pause or stop a clip; show or hide a target; switch the photodiode patch' }),
+  onStageEvents: hostEvent({ payload: stage.stageEventChunk, audience: 'stage', summary: 'The next events of the clip being played, ahead of need' }),
+  onLiveStatus: hostEvent({ payload: live.liveStatus, audience: 'console', summary: 'Live monitoring, a few times a second' }),
 } as const;
 
 export const contract = { channels, events } as const;
@@ -48,6 +68,9 @@ export type GazeloomHandlers = HostHandlers<Channels>;
 export * from './contract/result';
 export type { CallContext } from './contract/define';
 export type { JobStatus } from './contract/schemas/jobs';
+export type { LiveStatus, GazeSourceChoice } from './contract/schemas/live';
+export type RecoveredSessionInfo = import('zod').infer<typeof live.recoveredSession>;
+export type { StageCommand, StageEventChunk, FrameRecordWire } from './contract/schemas/stage';
 export type { DirectoryListing } from './contract/schemas/files';
 export type { StimulusMeta, EventStats, StimulusOperation } from './contract/schemas/stimuli';
 export type { AppInfo, DisplayInfo, StageStatus, StageStatusEvent, FirstRunTask } from './contract/schemas/app';

@@ -1,4 +1,5 @@
 import type { SensorSize } from '../core/events/event-batch';
+import { checkDisplayGeometry, type DisplayGeometry } from '../core/geometry/display-geometry';
 import type { TextTimeUnit } from '../core/events/text/text-event-decoder';
 import { CliError, type CommandContext } from './command';
 
@@ -62,3 +63,28 @@ export function noExtraPositionals(context: CommandContext, count: number): void
 
 export const sensorOptions = { width: { type: 'string' }, height: { type: 'string' } } as const;
 export const readOptions = { ...sensorOptions, 'time-unit': { type: 'string' }, sort: { type: 'boolean', default: false } } as const;
+
+/** A "WxH" option, e.g. --resolution 1920x1080. */
+export function sizeOption(context: CommandContext, name: string, integer: boolean): { width: number; height: number } | undefined {
+  const text = stringOption(context, name);
+  if (text === undefined) return undefined;
+  const match = /^\s*([0-9.]+)\s*[xX×]\s*([0-9.]+)\s*$/.exec(text);
+  const width = Number(match?.[1]);
+  const height = Number(match?.[2]);
+  const valid = match && width > 0 && height > 0 && (!integer || (Number.isInteger(width) && Number.isInteger(height)));
+  if (!valid) throw new CliError(`--${name} must be WIDTHxHEIGHT${integer ? ' in whole pixels' : ''}, e.g. ${integer ? '1920x1080' : '530x298'}, got "${text}"`);
+  return { width, height };
+}
+
+/** --screen-mm WxH --resolution WxH --distance-mm D: all three or none. */
+export function displayOption(context: CommandContext): DisplayGeometry | undefined {
+  const mm = sizeOption(context, 'screen-mm', false);
+  const px = sizeOption(context, 'resolution', true);
+  const distanceMm = numberOption(context, 'distance-mm', { min: 1 });
+  const given = [mm, px, distanceMm].filter((v) => v !== undefined).length;
+  if (given === 0) return undefined;
+  if (given !== 3) throw new CliError('give --screen-mm, --resolution and --distance-mm together');
+  return checkDisplayGeometry({ widthMm: mm!.width, heightMm: mm!.height, widthPx: px!.width, heightPx: px!.height, distanceMm: distanceMm! });
+}
+
+export const displayOptions = { 'screen-mm': { type: 'string' }, resolution: { type: 'string' }, 'distance-mm': { type: 'string' } } as const;

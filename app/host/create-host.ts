@@ -6,8 +6,13 @@ import type { HostClock } from '../core/clock/host-clock';
 import { dataFolderJob } from './data-folder-job';
 import { FirstRunQueue, type FirstRunJob } from './first-run';
 import { appHandlers } from './handlers/app-handlers';
+import { liveHandlers } from './handlers/live-handlers';
 import { stimulusHandlers } from './handlers/stimulus-handlers';
 import { JobRunner } from './jobs';
+import { displayGeometry, gazeSourceChoice } from '../contract/schemas/live';
+import { LiveSession } from './live/live-session';
+import { RecoveredSessions } from './live/recovered-sessions';
+import { SessionRecorder } from './recording/session-recorder';
 import type { HostLog } from './log';
 import type { StagePresenter } from './stage-presenter';
 import { demoClipsJob } from './stimuli/demo-clips';
@@ -39,6 +44,8 @@ export interface Host {
   /** A page (console or stage) connects; `send` delivers host events to it. */
   attach(page: CallContext['page'], send: EventSink['send']): HostConnection;
   startFirstRun(): Promise<void>;
+  /** Stops the recording (closing it cleanly) and the background timers. */
+  close(): Promise<void>;
 }
 
 /** The composition root of the host: every service, wired to the contract. */
@@ -50,8 +57,27 @@ export function createHost(options: HostOptions): Host {
   const store = new StimulusStore(options.dataDir, log);
   const changed = (ids: string[]) => hub.emit('onStimuliChanged', { ids });
   const stimuli = new StimulusService(store, jobs, changed);
+  const clockOriginNs = (clock as { originNs?: bigint }).originNs ?? null;
+  const recordingsDir = join(options.dataDir, 'recordings');
+  const recovered = new RecoveredSessions(recordingsDir);
+  const recorderOptions = { clock, clockOriginNs, onError: (error: Error) => log.error('recorder.write_failed', { message: error.message }) };
+  const live = new LiveSession({
+    clock,
+    log,
+    store,
+    recordingsDir,
+    openRecorder: (dir, meta) => SessionRecorder.create(dir, { sessionId: String(meta.sessionId), display: (meta.display as never) ?? null, metadata: meta }, recorderOptions),
+    reopenRecorder: async (dir) => {
+      const recorder = await SessionRecorder.reopen(dir, recorderOptions);
+      const { sessionId, display, metadata } = recorder.info;
+      return { recorder, sessionId, display: displayGeometry.parse(display), source: gazeSourceChoice.parse(metadata.source) };
+    },
+    toStage: { command: (command) => hub.emit('onStageCommand', command), events: (chunk) => hub.emit('onStageEvents', chunk) },
+    publish: (status) => hub.emit('onLiveStatus', status),
+  });
 
   firstRun.add(dataFolderJob(options.dataDir));
+  firstRun.add(recovered.job());
   if (!options.noDemo) firstRun.add(demoClipsJob(store, changed));
   for (const job of options.firstRunJobs ?? []) firstRun.add(job);
 
@@ -67,6 +93,7 @@ export function createHost(options: HostOptions): Host {
   const handlers: GazeloomHandlers = {
     ...appHandlers({ info, clock, log, stage: options.stage, hub, firstRun, stageStatuses }),
     ...stimulusHandlers({ store, service: stimuli, jobs, changed }),
+    ...liveHandlers(live, recovered),
   };
   const dispatch = createDispatcher(channels, handlers, log);
 
@@ -93,6 +120,7 @@ export function createHost(options: HostOptions): Host {
       };
     },
     startFirstRun: () => firstRun.start(),
+    close: () => live.dispose(),
   };
 }
 

@@ -1,5 +1,6 @@
 import { useHost } from './host-context';
 import { JobsTray } from './jobs/JobsTray';
+import { LiveScreen } from './live/LiveScreen';
 import { Overview } from './overview/Overview';
 import { StimulusLibrary } from './stimuli/StimulusLibrary';
 import { screens, useRoute } from './use-route';
@@ -33,6 +34,7 @@ export function App() {
       </header>
       {screen === 'overview' && <Overview />}
       {screen === 'stimuli' && <StimulusLibrary />}
+      {screen === 'live' && <LiveScreen />}
       <JobsTray />
     </div>
   );

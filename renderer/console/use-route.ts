@@ -3,6 +3,7 @@ import { useEffect, useState } from 'react';
 export const screens = [
   { id: 'overview', label: 'Overview', key: '1' },
   { id: 'stimuli', label: 'Stimuli', key: '2' },
+  { id: 'live', label: 'Live', key: '3' },
 ] as const;
 
 export type ScreenId = (typeof screens)[number]['id'];

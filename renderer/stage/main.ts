@@ -1,19 +1,32 @@
+import type { StageCommand } from '../../app/contract';
 import { connectToHost } from '../shared/host-api';
-import { drawIdleScreen } from './idle-screen';
+import { ClipPlayer } from './clip-player';
+import { FrameLog } from './frame-log';
+import { drawIdleScreen, restingGrey } from './idle-screen';
+import { MouseGaze } from './mouse-gaze';
+import { PhotodiodePatch } from './photodiode';
+import { StageClock } from './stage-clock';
 import { createSurface } from './surface';
+import { TargetLayer } from './targets';
 
 const canvas = document.getElementById('stage') as HTMLCanvasElement;
-const surface = createSurface(canvas);
+const surface = createSurface(canvas, new URLSearchParams(location.search).get('renderer') === 'canvas2d' ? 'canvas2d' : 'webgl2');
 // Each (re)connection is a new page to the host, so the status is reported again on open.
 const api = connectToHost('stage', (state) => {
   if (state === 'open') queueMicrotask(reportStatus);
 });
+const clock = new StageClock(api);
+const frameLog = new FrameLog(api, () => clock.estimate());
+const targets = new TargetLayer();
+const photodiode = new PhotodiodePatch();
+const mouse = new MouseGaze(api, canvas);
+let player: ClipPlayer | null = null;
+let hasPlayed = false;
 
-const fitToWindow = (): void => {
+function fitToWindow(): void {
   const ratio = window.devicePixelRatio || 1;
   surface.resize(Math.round(window.innerWidth * ratio), Math.round(window.innerHeight * ratio));
-  drawIdleScreen(surface);
-};
+}
 
 // Chromium throttles hidden pages, so the console must know when the stage is not visible.
 function reportStatus(): void {
@@ -26,7 +39,95 @@ function reportStatus(): void {
   });
 }
 
+function report(state: 'started' | 'paused' | 'resumed' | 'ended' | 'stopped', hostNs: number, stimulusUs: number | null, message?: string): void {
+  if (!player) return;
+  void api.reportPlayback({ playbackId: player.playbackId, state, hostNs, stimulusUs, ...(message ? { message } : {}) });
+}
+
+function onCommand(command: StageCommand): void {
+  const nowHost = clock.toHostNs(performance.now()) ?? 0;
+  switch (command.type) {
+    case 'prepareClip':
+      player = new ClipPlayer(command);
+      hasPlayed = true;
+      break;
+    case 'pauseClip':
+    case 'resumeClip':
+    case 'stopClip':
+      if (player?.playbackId !== command.playbackId) return;
+      if (command.type === 'stopClip') {
+        report('stopped', nowHost, null);
+        player = null;
+      } else if (command.type === 'pauseClip') {
+        player.pause(nowHost);
+        report('paused', nowHost, null);
+      } else {
+        player.resume(nowHost);
+        report('resumed', nowHost, null);
+      }
+      break;
+    case 'showTarget':
+      targets.show(command, performance.now());
+      break;
+    case 'hideTarget':
+      targets.hide(command.id);
+      break;
+    case 'setPhotodiode':
+      photodiode.enabled = command.enabled;
+      break;
+    case 'setMouseGaze':
+      mouse.setEnabled(command.enabled);
+      break;
+  }
+}
+
+api.onStageCommand(onCommand);
+api.onStageEvents((chunk) => {
+  if (player?.playbackId === chunk.playbackId) player.addChunk(chunk);
+});
+
+/** One animation frame: its timestamp is the best presentation-time estimate a browser gives. */
+function draw(stageTimeMs: number): void {
+  const hostNs = clock.toHostNs(stageTimeMs);
+  surface.clear(restingGrey);
+  let shown = null;
+  if (player && hostNs !== null) {
+    shown = player.frame(hostNs, { widthPx: canvas.width, heightPx: canvas.height });
+    if (shown) {
+      const { placement } = shown;
+      surface.drawImage(shown.rgba, placement.sensor.width, placement.sensor.height, {
+        left: placement.left,
+        top: placement.top,
+        width: placement.sensor.width * placement.scale,
+        height: placement.sensor.height * placement.scale,
+      });
+      if (shown.started) report('started', hostNs, shown.stimulusUs);
+    }
+  } else if (!hasPlayed && targets.count === 0) {
+    drawIdleScreen(surface);
+  }
+  targets.draw(surface, stageTimeMs);
+  const playing = shown !== null && !player!.paused;
+  const photodiodeState = photodiode.draw(surface, playing);
+  if (hostNs !== null) {
+    frameLog.add({
+      stageTimeMs,
+      hostNs,
+      clip: shown?.clip ?? null,
+      stimulusUs: shown?.stimulusUs ?? null,
+      eventsDrawn: shown?.eventsDrawn ?? 0,
+      photodiode: photodiodeState,
+    });
+  }
+  if (shown?.ended && player) {
+    report('ended', hostNs!, shown.stimulusUs, player.starvedFrames > 0 ? `${player.starvedFrames} frames waited for events` : undefined);
+    player = null;
+  }
+  requestAnimationFrame(draw);
+}
+
 fitToWindow();
+clock.start();
 document.body.dataset.renderer = surface.kind;
 document.body.dataset.ready = 'true';
 window.addEventListener('resize', () => {
@@ -34,3 +135,4 @@ window.addEventListener('resize', () => {
   reportStatus();
 });
 document.addEventListener('visibilitychange', reportStatus);
+requestAnimationFrame(draw);

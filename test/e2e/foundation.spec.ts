@@ -5,7 +5,7 @@ test('the console renders its main screen and the stage draws on its canvas', as
   await expect(page.getByRole('heading', { name: 'Gazeloom', level: 1 })).toBeVisible();
   await expect(page.getByRole('status')).toHaveText('host connected');
   await expect(page.getByText('browser mode (host on 127.0.0.1)')).toBeVisible();
-  await expect(page.locator('.task-done')).toContainText('Prepare the data folder');
+  await expect(page.locator('.task-done', { hasText: 'Prepare the data folder' })).toBeVisible();
 
   // The stage is a second page; it authenticates with the cookie the console's URL set.
   const stage = await context.newPage();

@@ -5,7 +5,13 @@ import { eventsFilterCommand } from './events/filter';
 import { eventsSimulateCommand } from './events/simulate';
 import { eventsStatsCommand } from './events/stats';
 import { eventsTrimCommand } from './events/trim';
+import { feedCheckCommand } from './feed/check';
+import { feedReplayCommand } from './feed/replay';
 import { infoCommand } from './info';
+import { recordCommand } from './record';
+import { recordingExportCommand } from './recording/export';
+import { recordingInspectCommand } from './recording/inspect';
+import { trackerSimulateCommand } from './tracker/simulate';
 
 /** Every subcommand; later capabilities add theirs here. */
 export const commands: readonly Command[] = [
@@ -16,4 +22,10 @@ export const commands: readonly Command[] = [
   eventsCropCommand,
   eventsFilterCommand,
   eventsSimulateCommand,
+  trackerSimulateCommand,
+  feedCheckCommand,
+  feedReplayCommand,
+  recordCommand,
+  recordingInspectCommand,
+  recordingExportCommand,
 ];

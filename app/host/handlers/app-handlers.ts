@@ -6,7 +6,7 @@ import type { FirstRunQueue } from '../first-run';
 import type { HostLog } from '../log';
 import type { StagePresenter } from '../stage-presenter';
 
-type AppChannels = 'getAppInfo' | 'ping' | 'listDisplays' | 'openStage' | 'reportStageStatus' | 'getFirstRunStatus';
+type AppChannels = 'getAppInfo' | 'ping' | 'listDisplays' | 'openStage' | 'reportStageStatus' | 'getStageStatus' | 'getFirstRunStatus';
 
 interface Deps {
   readonly info: AppInfo;
@@ -34,6 +34,10 @@ export function appHandlers({ info, clock, log, stage, hub, firstRun, stageStatu
       if (!status.visible) log.warn('stage.hidden', { connection: context.connectionId });
       hub.emit('onStageStatus', { ...status, connected: true });
       return {};
+    },
+    getStageStatus: () => {
+      const last = [...stageStatuses.values()].at(-1);
+      return { stage: last ? { ...last, connected: true } : null };
     },
     getFirstRunStatus: () => ({ tasks: firstRun.status() }),
   };

@@ -1,6 +1,9 @@
 import type { EventBatch } from '../../core/events/event-batch';
 import { sliceBatch } from '../../core/events/event-batch';
+import { readFile } from 'node:fs/promises';
+import { basename } from 'node:path';
 import type { z } from 'zod';
+import { parseTracksTsv } from '../../core/tracker-sim';
 import type { eventWindowRequest, ImportRequest, operateRequest, StimulusMeta } from '../../contract/schemas/stimuli';
 import { openEventInput } from '../events/event-input';
 import { openGlevFile, type GlevFile } from '../events/glev-file';
@@ -10,6 +13,17 @@ import { stimulusIdFor, type StimulusStore } from './stimulus-store';
 import { nameFromPath, writeStimulus } from './stimulus-writer';
 
 const DEFAULT_WINDOW_EVENTS = 2_000_000;
+
+/**
+ * Ground-truth tracks travel beside their events as NAME.tracks.tsv (what `events simulate
+ * --tracks` writes when given that name); they are checked and kept with the stimulus.
+ */
+async function siblingTracks(eventsPath: string): Promise<string | null> {
+  const path = eventsPath.replace(/\.[^./\\]+$/, '') + '.tracks.tsv';
+  const text = await readFile(path, 'utf8').catch(() => null);
+  if (text !== null) parseTracksTsv(text, basename(path));
+  return text;
+}
 const MAX_OPEN_READERS = 8;
 
 /**
@@ -28,6 +42,7 @@ export class StimulusService {
   startImport(request: ImportRequest): string {
     const name = request.name?.trim() || nameFromPath(request.path);
     return this.jobs.start('import', `Import ${name}`, async (report) => {
+      const tracksTsv = await siblingTracks(request.path);
       const input = await openEventInput(request.path, { timeUnit: request.timeUnit, sensor: request.sensor, sort: request.sort }, (f) => report(f, 'reading events'));
       try {
         const meta = await writeStimulus(
@@ -41,6 +56,7 @@ export class StimulusService {
             mayFlash: false,
             demo: false,
             warnings: input.warnings,
+            ...(tracksTsv ? { tracksTsv: () => tracksTsv } : {}),
           },
           input.batches(),
         );

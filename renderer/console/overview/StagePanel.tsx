@@ -1,16 +1,16 @@
 import { useEffect, useState } from 'react';
-import type { Failure, StageStatusEvent } from '../../../app/contract';
+import type { Failure } from '../../../app/contract';
 import { FailureNote } from '../FailureNote';
 import { useHost, useHostQuery } from '../host-context';
+import { useStageStatus } from '../use-stage-status';
 
 export function StagePanel() {
   const { api } = useHost();
   const displays = useHostQuery((host) => host.listDisplays({}));
   const [displayId, setDisplayId] = useState<string | null>(null);
-  const [status, setStatus] = useState<StageStatusEvent | null>(null);
+  const status = useStageStatus();
   const [failure, setFailure] = useState<Failure | null>(null);
 
-  useEffect(() => api.onStageStatus(setStatus), [api]);
   useEffect(() => {
     if (displays?.ok && displayId === null) {
       const preferred = displays.value.displays.find((d) => !d.primary) ?? displays.value.displays[0];

@@ -13,8 +13,7 @@ export interface RunningHost {
 }
 
 /** Starts the built browser mode on a free port with a fresh data folder, as a user would. */
-export async function startHost(extraArgs: readonly string[] = []): Promise<RunningHost> {
-  const dataDir = mkdtempSync(join(tmpdir(), 'gazeloom-e2e-'));
+export async function startHost(extraArgs: readonly string[] = [], dataDir = mkdtempSync(join(tmpdir(), 'gazeloom-e2e-'))): Promise<RunningHost> {
   const child = spawn(process.execPath, ['dist/host/browser-mode.mjs', '--port', '0', '--data-dir', dataDir, '--no-open', '--no-demo', ...extraArgs], {
     env: { ...process.env, BROWSER: 'none' },
     stdio: ['ignore', 'pipe', 'pipe'],
@@ -37,13 +36,14 @@ export async function startHost(extraArgs: readonly string[] = []): Promise<Runn
   return { url, origin: new URL(url).origin, dataDir, child, output: () => output };
 }
 
-export async function stopHost(host: RunningHost): Promise<void> {
-  if (host.child.exitCode === null) {
+/** Stops the host (SIGTERM: a clean shutdown; SIGKILL: a crash) and, unless kept, removes its data folder. */
+export async function stopHost(host: RunningHost, { signal = 'SIGTERM', keepData = false }: { signal?: NodeJS.Signals; keepData?: boolean } = {}): Promise<void> {
+  if (host.child.exitCode === null && host.child.signalCode === null) {
     const exited = new Promise((resolve) => host.child.once('exit', resolve));
-    host.child.kill('SIGTERM');
+    host.child.kill(signal);
     await exited;
   }
-  rmSync(host.dataDir, { recursive: true, force: true });
+  if (!keepData) rmSync(host.dataDir, { recursive: true, force: true });
 }
 
 /** A Playwright test with a fresh browser-mode host per test. */

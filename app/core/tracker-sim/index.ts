@@ -1,0 +1,10 @@
+export { offsetByAngle } from './angular-offset';
+export { DEFAULT_EYE_MOTION, resolveEyeMotion, type EyeMotionParams } from './eye-motion-params';
+export { checkLookTarget, type ClipLook, type LookTarget } from './look-target';
+export { saccadeDurationS } from './main-sequence';
+export { minimumJerkFraction } from './minimum-jerk';
+export { SimulatedTracker, type TrackerRecord } from './simulated-tracker';
+export { TrackTable } from './track-table';
+export { TrackerClock } from './tracker-clock';
+export { resolveTrackerSimOptions, TRACKER_SIM_DEFAULTS, type ResolvedTrackerSimOptions, type TrackerSimOptions } from './tracker-sim-options';
+export { parseTracksTsv } from './tracks-tsv';

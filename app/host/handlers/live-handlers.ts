@@ -1,0 +1,93 @@
+import type { GazeloomHandlers } from '../../contract';
+import { fail } from '../../contract/result';
+import type { LiveSession } from '../live/live-session';
+import type { RecoveredSessions } from '../live/recovered-sessions';
+
+type LiveChannels =
+  | 'reportFrames'
+  | 'reportPlayback'
+  | 'reportMouseGaze'
+  | 'startRecording'
+  | 'stopRecording'
+  | 'playClip'
+  | 'pausePlayback'
+  | 'resumePlayback'
+  | 'stopPlayback'
+  | 'getLiveStatus'
+  | 'listRecoveredSessions'
+  | 'resumeRecording'
+  | 'showTarget'
+  | 'hideTarget';
+
+const failure = (error: unknown) => fail('conflict', (error as Error).message);
+
+/** Recording, playback on the stage, and the stage's reports back to the host. */
+export function liveHandlers(live: LiveSession, recovered: RecoveredSessions): Pick<GazeloomHandlers, LiveChannels> {
+  return {
+    reportFrames: ({ frames, clock }) => {
+      live.frames(frames, clock);
+      return {};
+    },
+    reportPlayback: async (report) => {
+      await live.playbackReport(report);
+      return {};
+    },
+    reportMouseGaze: ({ samples }) => {
+      live.mouseSamples(samples);
+      return {};
+    },
+    startRecording: async ({ source, display, label }) => {
+      try {
+        return await live.startRecording(source, display, label);
+      } catch (error) {
+        return failure(error);
+      }
+    },
+    stopRecording: async () => {
+      try {
+        return await live.stopRecording();
+      } catch (error) {
+        return failure(error);
+      }
+    },
+    playClip: async ({ stimulusId, speed, look, placement, photodiode }) => {
+      try {
+        live.setPhotodiode(photodiode);
+        return { playbackId: await live.play({ stimulusId, speed, look, placement }) };
+      } catch (error) {
+        return fail('bad_input', (error as Error).message);
+      }
+    },
+    pausePlayback: () => {
+      live.scheduler.pause();
+      return {};
+    },
+    resumePlayback: () => {
+      live.scheduler.resume();
+      return {};
+    },
+    stopPlayback: async () => {
+      await live.stopClip();
+      return {};
+    },
+    getLiveStatus: () => live.status(),
+    listRecoveredSessions: () => ({ sessions: recovered.list() }),
+    resumeRecording: async ({ sessionId }) => {
+      const session = recovered.list().find((s) => s.sessionId === sessionId);
+      if (!session) return fail('not_found', `no recovered session "${sessionId}"`);
+      if (!session.resumable) return fail('unavailable', `${sessionId} does not say which gaze source and display it used, so it cannot be resumed as it was`);
+      try {
+        const started = await live.resumeRecording(session.dir);
+        recovered.forget(sessionId);
+        return started;
+      } catch (error) {
+        return failure(error);
+      }
+    },
+    showTarget: ({ x, y, purpose }) => ({ targetId: live.showTarget(x, y, purpose) }),
+    hideTarget: ({ targetId }) => {
+      live.hideTarget(targetId);
+      return {};
+    },
+  };
+}

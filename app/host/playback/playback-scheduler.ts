@@ -1,0 +1,142 @@
+import type { StageCommand, StageEventChunk } from '../../contract';
+import type { HostClock } from '../../core/clock/host-clock';
+import type { HostLog } from '../log';
+import { CompactChunkReader } from './compact-chunk-reader';
+
+export interface PlayRequest {
+  readonly stimulusId: string;
+  readonly eventsPath: string;
+  readonly speed: number;
+  readonly look: 'polarity' | 'decay' | 'grey';
+  readonly placement: 'fit' | '1:1' | 'integer';
+}
+
+export interface Playback {
+  readonly playbackId: string;
+  readonly clip: string;
+  readonly sensor: { width: number; height: number };
+  readonly placement: PlayRequest['placement'];
+  readonly speed: number;
+  readonly startAtHostNs: number;
+  state: 'starting' | 'playing' | 'paused' | 'ended' | 'stopped' | 'failed';
+  stimulusUs: number | null;
+}
+
+/** Stimulus time the stage should hold, past what it has shown, and the lead before the first frame. */
+const AHEAD_US = 600_000;
+const LEAD_NS = 400e6;
+
+/**
+ * Plays a clip on the stage at true timing: tells the stage when the clip's first instant
+ * is to be shown (a little in the future, so the first events are there in time), then
+ * streams the clip's chunks in time order, staying a fixed stimulus-time window ahead of
+ * what the stage reports it has shown. Never more than that window is in flight, so a clip
+ * of any length plays from a file of any size.
+ */
+export class PlaybackScheduler {
+  private current: { playback: Playback; reader: CompactChunkReader; nextChunk: number; pumping: boolean } | null = null;
+  private nextId = 1;
+
+  constructor(
+    private readonly clock: HostClock,
+    private readonly log: HostLog,
+    private readonly toStage: { command(command: StageCommand): void; events(chunk: StageEventChunk): void },
+  ) {}
+
+  get playback(): Playback | null {
+    return this.current?.playback ?? null;
+  }
+
+  async play(request: PlayRequest): Promise<Playback> {
+    await this.stop();
+    const reader = await CompactChunkReader.open(request.eventsPath);
+    const info = reader.info;
+    if (info.eventCount === 0) {
+      await reader.close();
+      throw new Error(`${request.stimulusId} has no events to play`);
+    }
+    const playback: Playback = {
+      playbackId: `play-${this.nextId++}`,
+      clip: request.stimulusId,
+      sensor: info.sensor,
+      placement: request.placement,
+      speed: request.speed,
+      startAtHostNs: this.clock.nowNs() + LEAD_NS,
+      state: 'starting',
+      stimulusUs: null,
+    };
+    this.current = { playback, reader, nextChunk: 0, pumping: false };
+    this.toStage.command({
+      type: 'prepareClip',
+      playbackId: playback.playbackId,
+      clip: request.stimulusId,
+      sensor: info.sensor,
+      tStartUs: info.tStartUs,
+      tEndUs: info.tEndUs,
+      speed: request.speed,
+      look: request.look,
+      placement: request.placement,
+      startAtHostNs: playback.startAtHostNs,
+    });
+    await this.pump();
+    return playback;
+  }
+
+  /** The stage has shown stimulus time t: keep the window ahead of it filled. */
+  progress(playbackId: string, stimulusUs: number): void {
+    const c = this.current;
+    if (!c || c.playback.playbackId !== playbackId) return;
+    c.playback.stimulusUs = stimulusUs;
+    void this.pump();
+  }
+
+  pause(): void {
+    if (this.current) this.toStage.command({ type: 'pauseClip', playbackId: this.current.playback.playbackId });
+  }
+
+  resume(): void {
+    if (this.current) this.toStage.command({ type: 'resumeClip', playbackId: this.current.playback.playbackId });
+  }
+
+  /** The stage reported a state change; an ended or stopped clip releases its file. */
+  async reported(playbackId: string, state: Playback['state']): Promise<void> {
+    const c = this.current;
+    if (!c || c.playback.playbackId !== playbackId) return;
+    c.playback.state = state;
+    if (state === 'ended' || state === 'stopped' || state === 'failed') {
+      this.current = null;
+      await c.reader.close();
+    }
+  }
+
+  async stop(): Promise<void> {
+    const c = this.current;
+    if (!c) return;
+    this.current = null;
+    c.playback.state = 'stopped';
+    this.toStage.command({ type: 'stopClip', playbackId: c.playback.playbackId });
+    await c.reader.close();
+  }
+
+  private async pump(): Promise<void> {
+    const c = this.current;
+    if (!c || c.pumping) return;
+    c.pumping = true;
+    try {
+      const info = c.reader.info;
+      const wanted = () => (c.playback.stimulusUs ?? info.tStartUs) + AHEAD_US; // progress may arrive while reading
+      while (this.current === c && c.nextChunk < info.chunkCount && info.chunks[c.nextChunk]!.tFirstUs <= wanted()) {
+        const k = c.nextChunk++;
+        const chunk = await c.reader.read(k);
+        if (this.current !== c) break;
+        this.toStage.events({ playbackId: c.playback.playbackId, ...chunk, ticksPerUs: c.reader.ticksPerUs, last: k === info.chunkCount - 1 });
+      }
+    } catch (error) {
+      this.log.error('playback.read_failed', { clip: c.playback.clip, message: (error as Error).message });
+      c.playback.state = 'failed';
+      await this.stop();
+    } finally {
+      c.pumping = false;
+    }
+  }
+}
