@@ -38,6 +38,7 @@ export const channels = {
   startRecording: channel({ request: live.startRecordingRequest, response: live.startRecordingResponse, summary: 'Start recording a session from a gaze source' }),
   stopRecording: channel({ request: empty, response: live.stopRecordingResponse, summary: 'Stop and close the recording' }),
   playClip: channel({ request: live.playClipRequest, response: z.object({ playbackId: z.string() }), summary: 'Play a stimulus on the stage at true timing' }),
+  playTestPattern: channel({ request: live.playTestPatternRequest, response: z.object({ playbackId: z.string() }), summary: 'Play the stage capacity test pattern at a chosen event rate' }),
   pausePlayback: channel({ request: empty, response: empty, summary: 'Pause the clip on the stage' }),
   resumePlayback: channel({ request: empty, response: empty, summary: 'Resume the paused clip' }),
   stopPlayback: channel({ request: empty, response: empty, summary: 'Stop the clip and return the stage to grey' }),
@@ -54,7 +55,7 @@ export const events = {
   onJobProgress: hostEvent({ payload: jobs.jobStatus, audience: 'console', summary: 'A host job moved on, finished or failed' }),
   onStimuliChanged: hostEvent({ payload: z.object({ ids: z.array(z.string()) }), audience: 'console', summary: 'Stimuli were added, changed or removed' }),
   onStageCommand: hostEvent({ payload: stage.stageCommand, audience: 'stage', summary: 'Play, pause or stop a clip; show or hide a target; switch the photodiode patch' }),
-  onStageEvents: hostEvent({ payload: stage.stageEventChunk, audience: 'stage', summary: 'The next events of the clip being played, ahead of need' }),
+  onStageEvents: hostEvent({ payload: stage.stageEventChunk, audience: 'stage', bulk: true, summary: 'The next events of the clip being played, ahead of need' }),
   onLiveStatus: hostEvent({ payload: live.liveStatus, audience: 'console', summary: 'Live monitoring, a few times a second' }),
 } as const;
 

@@ -14,6 +14,12 @@ export interface EventDef<Payload extends z.ZodType = z.ZodType> {
   readonly payload: Payload;
   readonly audience: Audience;
   readonly summary: string;
+  /**
+   * Bulk data (a clip's events, tens of MB/s): a transport with a faster path for bulk
+   * carries it there (browser mode: a streamed HTTP response beside the WebSocket, which
+   * Chromium receives several times faster). It is validated like every other event.
+   */
+  readonly bulk?: boolean;
 }
 
 export function channel<Req extends z.ZodType, Res extends z.ZodType>(def: ChannelDef<Req, Res>): ChannelDef<Req, Res> {

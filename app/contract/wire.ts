@@ -30,6 +30,8 @@ export const wireMessage = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('event'), name: z.string(), payload: z.unknown() }),
   /** The host could not read a frame at all, so there is no request id to answer. */
   z.object({ kind: z.literal('rejected'), failure: failureSchema }),
+  /** The host's first message on a connection: its id, to open the bulk stream with. */
+  z.object({ kind: z.literal('welcome'), connectionId: z.string() }),
 ]);
 
 export type WireMessage = z.infer<typeof wireMessage>;
@@ -152,4 +154,64 @@ function restoreAttachments(value: unknown, views: AnyTypedArray[]): unknown {
   const out: Record<string, unknown> = {};
   for (const key of keys) out[key] = restoreAttachments(record[key], views);
   return out;
+}
+
+/**
+ * The bulk stream is a sequence of frames, each preceded by 8 bytes: its length (u32,
+ * little-endian) and 4 zero bytes that keep the frame 8-aligned for its attachments. A
+ * reader cuts frames out of the byte stream whatever its chunking.
+ */
+export function streamedFramePrefix(frameBytes: number): Uint8Array {
+  const prefix = new Uint8Array(8);
+  new DataView(prefix.buffer).setUint32(0, frameBytes, true);
+  return prefix;
+}
+
+/** Cuts length-prefixed frames out of a byte stream as it arrives, copying each byte once. */
+export class StreamedFrameReader {
+  private readonly parts: Uint8Array[] = [];
+  private buffered = 0;
+
+  push(bytes: Uint8Array): WireMessage[] {
+    this.parts.push(bytes);
+    this.buffered += bytes.byteLength;
+    const out: WireMessage[] = [];
+    for (;;) {
+      if (this.buffered < 8) break;
+      const length = new DataView(this.peek(8).buffer).getUint32(0, true);
+      if (this.buffered < 8 + length) break;
+      this.take(8);
+      out.push(decodeFrame(this.take(length)));
+    }
+    return out;
+  }
+
+  /** The first n buffered bytes, copied (the parts are left alone). */
+  private peek(n: number): Uint8Array {
+    const out = new Uint8Array(n);
+    let filled = 0;
+    for (const part of this.parts) {
+      const use = Math.min(part.byteLength, n - filled);
+      out.set(part.subarray(0, use), filled);
+      filled += use;
+      if (filled === n) break;
+    }
+    return out;
+  }
+
+  /** Removes and returns the first n buffered bytes in a fresh (aligned) buffer. */
+  private take(n: number): Uint8Array {
+    const out = new Uint8Array(n);
+    let filled = 0;
+    while (filled < n) {
+      const part = this.parts[0]!;
+      const use = Math.min(part.byteLength, n - filled);
+      out.set(part.subarray(0, use), filled);
+      filled += use;
+      if (use === part.byteLength) this.parts.shift();
+      else this.parts[0] = part.subarray(use);
+    }
+    this.buffered -= n;
+    return out;
+  }
 }

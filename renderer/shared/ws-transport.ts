@@ -1,6 +1,6 @@
 import type { ContractTransport } from '../../app/contract/client';
 import { fail } from '../../app/contract/result';
-import { decodeFrame, encodeFrame, type WireMessage } from '../../app/contract/wire';
+import { decodeFrame, encodeFrame, StreamedFrameReader, type WireMessage } from '../../app/contract/wire';
 
 export type ConnectionState = 'connecting' | 'open' | 'closed';
 
@@ -54,6 +54,26 @@ export function createWebSocketTransport(
       for (const listener of listeners.get(message.name) ?? []) listener(message.payload);
     } else if (message.kind === 'rejected') {
       console.error(`Gazeloom host rejected a frame: ${message.failure.message}`);
+    } else if (message.kind === 'welcome' && page === 'stage') {
+      void openBulkStream(message.connectionId);
+    }
+  };
+
+  // The stage's bulk events (a clip's events) arrive on a streamed HTTP response, which
+  // Chromium takes in several times faster than WebSocket messages.
+  const openBulkStream = async (connectionId: string): Promise<void> => {
+    try {
+      const response = await fetch(`/bulk?connection=${encodeURIComponent(connectionId)}`, { cache: 'no-store' });
+      if (!response.ok || !response.body) throw new Error(`HTTP ${response.status}`);
+      const reader = response.body.getReader();
+      const frames = new StreamedFrameReader();
+      for (;;) {
+        const { value, done } = await reader.read();
+        if (done) return;
+        for (const message of frames.push(value)) receive(message);
+      }
+    } catch (error) {
+      console.error(`Gazeloom bulk stream stopped: ${(error as Error).message}; bulk events fall back to the WebSocket`);
     }
   };
 

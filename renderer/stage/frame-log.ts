@@ -1,6 +1,10 @@
 import type { FrameRecordWire, GazeloomApi } from '../../app/contract';
 
-/** The nominal refresh interval is taken as the median of recent frame intervals (60 Hz until known). */
+/**
+ * The nominal refresh interval: the 10th percentile of recent frame intervals (60 Hz until
+ * known). A low percentile, not the median, so a stage that keeps missing frames cannot
+ * talk its own nominal rate down and stop counting them as late.
+ */
 class RefreshEstimate {
   private readonly intervals: number[] = [];
   nominalMs = 1000 / 60;
@@ -11,7 +15,7 @@ class RefreshEstimate {
     if (this.intervals.length > 120) this.intervals.shift();
     if (this.intervals.length >= 10) {
       const sorted = [...this.intervals].sort((a, b) => a - b);
-      this.nominalMs = sorted[sorted.length >> 1]!;
+      this.nominalMs = sorted[Math.floor(sorted.length / 10)]!;
     }
   }
 }

@@ -1,4 +1,4 @@
-import type { StageCommand } from '../../app/contract';
+import type { StageCommand, StageEventChunk } from '../../app/contract';
 import { connectToHost } from '../shared/host-api';
 import { ClipPlayer } from './clip-player';
 import { FrameLog } from './frame-log';
@@ -22,6 +22,9 @@ const photodiode = new PhotodiodePatch();
 const mouse = new MouseGaze(api, canvas);
 let player: ClipPlayer | null = null;
 let hasPlayed = false;
+// Events and commands travel on different paths in browser mode, so a clip's first events
+// may come before its prepareClip command: they wait here for it.
+const early = new Map<string, StageEventChunk[]>();
 
 function fitToWindow(): void {
   const ratio = window.devicePixelRatio || 1;
@@ -50,6 +53,8 @@ function onCommand(command: StageCommand): void {
     case 'prepareClip':
       player = new ClipPlayer(command);
       hasPlayed = true;
+      for (const chunk of early.get(command.playbackId) ?? []) player.addChunk(chunk);
+      early.clear();
       break;
     case 'pauseClip':
     case 'resumeClip':
@@ -83,11 +88,15 @@ function onCommand(command: StageCommand): void {
 
 api.onStageCommand(onCommand);
 api.onStageEvents((chunk) => {
-  if (player?.playbackId === chunk.playbackId) player.addChunk(chunk);
+  if (player?.playbackId === chunk.playbackId) return player.addChunk(chunk);
+  const waiting = early.get(chunk.playbackId) ?? [];
+  if (waiting.length < 4096) waiting.push(chunk); // chunks of a stopped clip are dropped at the next prepareClip
+  early.set(chunk.playbackId, waiting);
 });
 
 /** One animation frame: its timestamp is the best presentation-time estimate a browser gives. */
 function draw(stageTimeMs: number): void {
+  const drawStart = performance.now();
   const hostNs = clock.toHostNs(stageTimeMs);
   surface.clear(restingGrey);
   let shown = null;
@@ -117,6 +126,7 @@ function draw(stageTimeMs: number): void {
       stimulusUs: shown?.stimulusUs ?? null,
       eventsDrawn: shown?.eventsDrawn ?? 0,
       photodiode: photodiodeState,
+      drawMs: performance.now() - drawStart,
     });
   }
   if (shown?.ended && player) {

@@ -2,44 +2,15 @@ import { mkdtempSync } from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import WebSocket, { WebSocketServer } from 'ws';
+import { WebSocketServer } from 'ws';
 import { contract } from '../../app/contract';
-import { createContractClient, type ContractTransport } from '../../app/contract/client';
-import { decodeFrame, encodeFrame } from '../../app/contract/wire';
+import { createContractClient } from '../../app/contract/client';
+import { encodeFrame } from '../../app/contract/wire';
 import { startBrowserMode } from '../../app/host/browser-mode/start';
 import { createHostLog } from '../../app/host/log';
 import { createMonotonicClock } from '../../app/host/monotonic-clock';
 import { opsPerSecond, rate, type Benchmark } from './harness';
-
-function open(url: string, headers: Record<string, string> = {}): Promise<WebSocket> {
-  return new Promise((resolve, reject) => {
-    const ws = new WebSocket(url, { headers });
-    ws.once('open', () => resolve(ws));
-    ws.once('error', reject);
-  });
-}
-
-/** Request/response over a `ws` socket, framed as the renderer frames it. */
-function nodeTransport(ws: WebSocket): ContractTransport {
-  const pending = new Map<number, (result: unknown) => void>();
-  let nextId = 1;
-  ws.on('message', (data: Buffer) => {
-    const message = decodeFrame(new Uint8Array(data.buffer, data.byteOffset, data.byteLength));
-    if (message.kind === 'response') {
-      pending.get(message.id)?.(message.result);
-      pending.delete(message.id);
-    }
-  });
-  return {
-    request: (channel, payload) =>
-      new Promise((resolve) => {
-        const id = nextId++;
-        pending.set(id, resolve);
-        ws.send(encodeFrame({ kind: 'request', id, channel, payload }));
-      }),
-    subscribe: () => () => undefined,
-  };
-}
+import { nodeTransport, openSocket as open } from './node-contract-client';
 
 export const benchmark: Benchmark = {
   name: 'contract round trips over the browser-mode WebSocket',

@@ -67,7 +67,20 @@ export const liveStatus = z.object({
     .object({ playbackId: z.string(), clip: z.string(), state: z.string(), stimulusUs: finite.nullable(), sensor: z.object({ width: positiveInt, height: positiveInt }), placement: placementMode })
     .nullable(),
   display: displayGeometry.nullable(),
+  /** The frames of the clip playing now, or of the last one: how many, how many late, and the stage's draw time per frame. */
+  clipFrames: z.object({ frames: nonNegativeInt, late: nonNegativeInt, drawMsP50: finite.nullable(), drawMsP99: finite.nullable() }).nullable(),
 });
+
+export const playTestPatternRequest = z
+  .object({
+    eventsPerSecond: finite.min(1).max(1e9),
+    width: positiveInt.max(4096),
+    height: positiveInt.max(4096),
+    durationS: finite.min(0.1).max(600),
+    look: lookName,
+    placement: placementMode,
+  })
+  .strict();
 
 export type LiveStatus = z.infer<typeof liveStatus>;
 export type GazeSourceChoice = z.infer<typeof gazeSourceChoice>;

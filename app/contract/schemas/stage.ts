@@ -64,6 +64,8 @@ export const frameRecord = z.object({
   eventsDrawn: nonNegativeInt,
   late: z.boolean(),
   photodiode: z.union([z.literal(0), z.literal(1)]).nullable(),
+  /** How long the stage's own drawing of this frame took (ms, main thread); not recorded. */
+  drawMs: finite.optional(),
 });
 
 export const reportFramesRequest = z

@@ -1,7 +1,8 @@
 import type { IncomingMessage, Server, ServerResponse } from 'node:http';
 import type { Duplex } from 'node:stream';
 import { WebSocketServer, type WebSocket } from 'ws';
-import { decodeFrame, encodeFrame, FrameError, type WireMessage } from '../../contract/wire';
+import { events } from '../../contract';
+import { decodeFrame, encodeFrame, FrameError, streamedFramePrefix, type WireMessage } from '../../contract/wire';
 import { fail } from '../../contract/result';
 import { contentSecurityPolicy } from '../content-security-policy';
 import type { Host } from '../create-host';
@@ -45,7 +46,9 @@ export function attachBridge(server: Server, options: BridgeOptions): { close():
         response.writeHead(405, { Allow: 'GET, HEAD' }).end();
         return;
       }
-      const path = new URL(request.url ?? '/', origin).pathname;
+      const url = new URL(request.url ?? '/', origin);
+      const path = url.pathname;
+      if (path === '/bulk') return openBulkStream(url.searchParams.get('connection') ?? '', request, response);
       if (path === '/') {
         response.writeHead(302, { Location: '/console/', ...(proof === 'query' ? { 'Set-Cookie': auth.setCookieHeader() } : {}) }).end();
         return;
@@ -79,11 +82,38 @@ export function attachBridge(server: Server, options: BridgeOptions): { close():
     sockets.handleUpgrade(request, socket, head, (ws) => serveConnection(ws, page as 'console' | 'stage'));
   });
 
+  /** Open bulk streams by connection id: bulk events for that page go here instead of its WebSocket. */
+  const bulkStreams = new Map<string, ServerResponse | null>();
+
+  function openBulkStream(connectionId: string, request: IncomingMessage, response: ServerResponse): void {
+    if (!bulkStreams.has(connectionId) || bulkStreams.get(connectionId) !== null) {
+      refuse(request, `bulk stream for unknown or already streaming connection "${connectionId}"`);
+      response.writeHead(409, { 'Content-Type': 'text/plain; charset=utf-8' }).end('409: no such connection, or it already has a bulk stream\n');
+      return;
+    }
+    response.writeHead(200, { 'Content-Type': 'application/octet-stream', 'Cache-Control': 'no-store', 'X-Content-Type-Options': 'nosniff' });
+    response.flushHeaders();
+    bulkStreams.set(connectionId, response);
+    response.on('close', () => {
+      if (bulkStreams.get(connectionId) === response) bulkStreams.set(connectionId, null);
+    });
+  }
+
   function serveConnection(ws: WebSocket, page: 'console' | 'stage'): void {
     const send = (message: WireMessage): void => {
       if (ws.readyState === ws.OPEN) ws.send(encodeFrame(message));
     };
-    const connection = host.attach(page, (name, payload) => send({ kind: 'event', name, payload }));
+    const isBulk = (name: string) => (events as Record<string, { bulk?: boolean }>)[name]?.bulk === true;
+    const connection = host.attach(page, (name, payload) => {
+      const stream = bulkStreams.get(connection.id);
+      if (stream && isBulk(name)) {
+        const frame = encodeFrame({ kind: 'event', name, payload });
+        stream.write(streamedFramePrefix(frame.byteLength));
+        stream.write(frame);
+      } else send({ kind: 'event', name, payload });
+    });
+    bulkStreams.set(connection.id, null);
+    send({ kind: 'welcome', connectionId: connection.id });
     ws.on('message', (data, isBinary) => {
       let message: WireMessage;
       try {
@@ -103,7 +133,11 @@ export function attachBridge(server: Server, options: BridgeOptions): { close():
       const { id } = message;
       void connection.dispatch(message.channel, message.payload).then((result) => send({ kind: 'response', id, result }));
     });
-    ws.on('close', () => connection.detach());
+    ws.on('close', () => {
+      bulkStreams.get(connection.id)?.end();
+      bulkStreams.delete(connection.id);
+      connection.detach();
+    });
     ws.on('error', (error) => log.warn('bridge.socket_error', { connection: connection.id, message: error.message }));
   }
 

@@ -14,6 +14,7 @@ type LiveChannels =
   | 'resumePlayback'
   | 'stopPlayback'
   | 'getLiveStatus'
+  | 'playTestPattern'
   | 'listRecoveredSessions'
   | 'resumeRecording'
   | 'showTarget'
@@ -54,6 +55,13 @@ export function liveHandlers(live: LiveSession, recovered: RecoveredSessions): P
       try {
         live.setPhotodiode(photodiode);
         return { playbackId: await live.play({ stimulusId, speed, look, placement }) };
+      } catch (error) {
+        return fail('bad_input', (error as Error).message);
+      }
+    },
+    playTestPattern: async ({ eventsPerSecond, width, height, durationS, look, placement }) => {
+      try {
+        return { playbackId: await live.playTestPattern({ eventsPerSecond, sensor: { width, height }, durationS, speed: 1, look, placement }) };
       } catch (error) {
         return fail('bad_input', (error as Error).message);
       }

@@ -15,7 +15,9 @@ import type { GazeSource } from '../gaze/gaze-source';
 import { MouseGazeSource } from '../gaze/mouse-source';
 import { SimulatedTrackerSource } from '../gaze/simulated-source';
 import type { HostLog } from '../log';
+import { CompactChunkReader } from '../playback/compact-chunk-reader';
 import { PlaybackScheduler, type PlayRequest } from '../playback/playback-scheduler';
+import { TestPatternSource, type TestPatternOptions } from '../playback/test-pattern-source';
 import type { StimulusStore } from '../stimuli/stimulus-store';
 import { GazeIntake } from './gaze-intake';
 
@@ -67,6 +69,8 @@ export class LiveSession {
   private lastDisplay: DisplayGeometry | null = null;
   private pausedAtUs: number | null = null;
   private targetCount = 0;
+  /** Frames of the clip playing now (or last): for the live figures and the stage capacity check. */
+  private clipFrames: { total: number; late: number; drawMs: number[] } = { total: 0, late: 0, drawMs: [] };
 
   constructor(private readonly deps: LiveSessionDeps) {
     this.scheduler = new PlaybackScheduler(deps.clock, deps.log, deps.toStage);
@@ -138,11 +142,23 @@ export class LiveSession {
     return { sessionId: r.sessionId, samples: r.intake.samples, frames: r.counts.frames, messages: r.counts.messages };
   }
 
-  async play(request: Omit<PlayRequest, 'eventsPath'>): Promise<string> {
+  async play(request: Omit<PlayRequest, 'source' | 'clip'> & { stimulusId: string }): Promise<string> {
     const meta = await this.deps.store.get(request.stimulusId);
     if (!meta) throw new Error(`no stimulus "${request.stimulusId}" in the library`);
-    const playback = await this.scheduler.play({ ...request, eventsPath: this.deps.store.files(meta.id).events });
+    const source = await CompactChunkReader.open(this.deps.store.files(meta.id).events);
+    return this.start({ ...request, clip: meta.id, source });
+  }
+
+  /** Plays the stage capacity test pattern at a chosen event rate. */
+  async playTestPattern(request: Omit<PlayRequest, 'source' | 'clip'> & TestPatternOptions): Promise<string> {
+    const source = new TestPatternSource(request);
+    return this.start({ ...request, clip: `test-pattern-${Math.round(request.eventsPerSecond)}`, source });
+  }
+
+  private async start(request: PlayRequest): Promise<string> {
+    const playback = await this.scheduler.play(request);
     this.pausedAtUs = null;
+    this.clipFrames = { total: 0, late: 0, drawMs: [] };
     return playback.playbackId;
   }
 
@@ -154,6 +170,12 @@ export class LiveSession {
     if (this.running) {
       this.running.recorder.appendFrames(frames);
       this.running.counts.frames += frames.length;
+    }
+    for (const f of frames) {
+      if (f.clip === null) continue;
+      this.clipFrames.total++;
+      if (f.late) this.clipFrames.late++;
+      if (f.drawMs !== undefined && this.clipFrames.drawMs.length < 100_000) this.clipFrames.drawMs.push(f.drawMs);
     }
     const playback = this.scheduler.playback;
     const last = [...frames].reverse().find((f) => f.clip !== null && f.stimulusUs !== null);
@@ -249,8 +271,17 @@ export class LiveSession {
       alarm: figures?.alarm ?? false,
       trail: figures?.trail ?? [],
       playback: playback ? { playbackId: playback.playbackId, clip: playback.clip, state: playback.state, stimulusUs: playback.stimulusUs, sensor: playback.sensor, placement: playback.placement } : null,
+      clipFrames: this.clipFrameFigures(),
       display: r?.display ?? this.lastDisplay,
     };
+  }
+
+  private clipFrameFigures(): LiveStatus['clipFrames'] {
+    const { total, late, drawMs } = this.clipFrames;
+    if (total === 0) return null;
+    const sorted = [...drawMs].sort((a, b) => a - b);
+    const at = (q: number) => (sorted.length ? sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))]! : null);
+    return { frames: total, late, drawMsP50: at(0.5), drawMsP99: at(0.99) };
   }
 
   async dispose(): Promise<void> {

@@ -4,13 +4,14 @@ import { EventFormatError } from '../../core/events/event-format-error';
 import { chunkByteLength, readU64 } from '../../core/events/glev/layout';
 import type { CompactEventChunk } from '../../core/playback/event-chunk-queue';
 import { openGlevFile, type GlevFile } from '../events/glev-file';
+import type { ChunkSource } from './chunk-source';
 
 /**
  * Reads a stimulus's .glev chunks for playback without decoding them: each chunk's dt, x
  * and yp columns go to the stage as they are on disk (8 bytes per event), after the
  * chunk's CRC32 is checked. The stage decodes them as they fall due.
  */
-export class CompactChunkReader {
+export class CompactChunkReader implements ChunkSource {
   private constructor(
     private readonly file: GlevFile,
     private readonly handle: FileHandle,
@@ -27,11 +28,32 @@ export class CompactChunkReader {
     }
   }
 
-  get info(): GlevFile {
-    return this.file;
+  get name(): string {
+    return this.path;
+  }
+  get sensor() {
+    return this.file.sensor;
+  }
+  get resolution() {
+    return this.file.resolution;
+  }
+  get eventCount(): number {
+    return this.file.eventCount;
+  }
+  get tStartUs(): number {
+    return this.file.tStartUs;
+  }
+  get tEndUs(): number {
+    return this.file.tEndUs;
+  }
+  get chunkCount(): number {
+    return this.file.chunkCount;
+  }
+  chunkStartUs(k: number): number {
+    return this.file.chunks[k]!.tFirstUs;
   }
 
-  get ticksPerUs(): 1 | 1000 {
+  private get ticksPerUs(): 1 | 1000 {
     return this.file.resolution === 'ns' ? 1000 : 1;
   }
 

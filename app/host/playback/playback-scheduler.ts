@@ -1,11 +1,12 @@
 import type { StageCommand, StageEventChunk } from '../../contract';
 import type { HostClock } from '../../core/clock/host-clock';
 import type { HostLog } from '../log';
-import { CompactChunkReader } from './compact-chunk-reader';
+import type { ChunkSource } from './chunk-source';
 
 export interface PlayRequest {
-  readonly stimulusId: string;
-  readonly eventsPath: string;
+  /** The clip's id in messages and the frame log (a stimulus id, or a test pattern's name). */
+  readonly clip: string;
+  readonly source: ChunkSource;
   readonly speed: number;
   readonly look: 'polarity' | 'decay' | 'grey';
   readonly placement: 'fit' | '1:1' | 'integer';
@@ -34,7 +35,7 @@ const LEAD_NS = 400e6;
  * of any length plays from a file of any size.
  */
 export class PlaybackScheduler {
-  private current: { playback: Playback; reader: CompactChunkReader; nextChunk: number; pumping: boolean } | null = null;
+  private current: { playback: Playback; reader: ChunkSource; nextChunk: number; pumping: boolean } | null = null;
   private nextId = 1;
 
   constructor(
@@ -49,15 +50,15 @@ export class PlaybackScheduler {
 
   async play(request: PlayRequest): Promise<Playback> {
     await this.stop();
-    const reader = await CompactChunkReader.open(request.eventsPath);
-    const info = reader.info;
+    const reader = request.source;
+    const info = reader;
     if (info.eventCount === 0) {
       await reader.close();
-      throw new Error(`${request.stimulusId} has no events to play`);
+      throw new Error(`${request.clip} has no events to play`);
     }
     const playback: Playback = {
       playbackId: `play-${this.nextId++}`,
-      clip: request.stimulusId,
+      clip: request.clip,
       sensor: info.sensor,
       placement: request.placement,
       speed: request.speed,
@@ -69,7 +70,7 @@ export class PlaybackScheduler {
     this.toStage.command({
       type: 'prepareClip',
       playbackId: playback.playbackId,
-      clip: request.stimulusId,
+      clip: request.clip,
       sensor: info.sensor,
       tStartUs: info.tStartUs,
       tEndUs: info.tEndUs,
@@ -123,13 +124,13 @@ export class PlaybackScheduler {
     if (!c || c.pumping) return;
     c.pumping = true;
     try {
-      const info = c.reader.info;
-      const wanted = () => (c.playback.stimulusUs ?? info.tStartUs) + AHEAD_US; // progress may arrive while reading
-      while (this.current === c && c.nextChunk < info.chunkCount && info.chunks[c.nextChunk]!.tFirstUs <= wanted()) {
+      const source = c.reader;
+      const wanted = () => (c.playback.stimulusUs ?? source.tStartUs) + AHEAD_US; // progress may arrive while reading
+      while (this.current === c && c.nextChunk < source.chunkCount && source.chunkStartUs(c.nextChunk) <= wanted()) {
         const k = c.nextChunk++;
-        const chunk = await c.reader.read(k);
+        const chunk = await source.read(k);
         if (this.current !== c) break;
-        this.toStage.events({ playbackId: c.playback.playbackId, ...chunk, ticksPerUs: c.reader.ticksPerUs, last: k === info.chunkCount - 1 });
+        this.toStage.events({ playbackId: c.playback.playbackId, ...chunk, ticksPerUs: chunk.ticksPerUs === 1000 ? 1000 : 1, last: k === source.chunkCount - 1 });
       }
     } catch (error) {
       this.log.error('playback.read_failed', { clip: c.playback.clip, message: (error as Error).message });

@@ -3,6 +3,7 @@ import { PlaybackControls } from './PlaybackControls';
 import { RecordingControls } from './RecordingControls';
 import { RecoveredSessions } from './RecoveredSessions';
 import { TargetCheck } from './TargetCheck';
+import { TestPatternControls } from './TestPatternControls';
 import { StageMirror } from './StageMirror';
 import { useLiveStatus } from './use-live-status';
 
@@ -16,6 +17,7 @@ export function LiveScreen() {
         <RecordingControls status={status} />
         <PlaybackControls status={status} />
         <TargetCheck status={status} />
+        <TestPatternControls />
       </div>
       <section className="panel live-monitor" aria-labelledby="monitor-heading">
         <h2 id="monitor-heading">Live</h2>

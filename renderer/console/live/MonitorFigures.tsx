@@ -36,6 +36,15 @@ export function MonitorFigures({ status }: { status: LiveStatus | null }) {
           {status.framesLate} of {status.framesTotal}
           {lateShare !== null && ` (${lateShare.toFixed(2)} %)`}
         </dd>
+        {status.clipFrames && (
+          <>
+            <dt>This clip</dt>
+            <dd>
+              {status.clipFrames.frames} frames, {status.clipFrames.late} late; stage draw time p50 {status.clipFrames.drawMsP50?.toFixed(1) ?? '–'} ms, p99{' '}
+              {status.clipFrames.drawMsP99?.toFixed(1) ?? '–'} ms
+            </dd>
+          </>
+        )}
         <dt>Garbage lines</dt>
         <dd>{status.garbageLines}</dd>
         {status.recording && (

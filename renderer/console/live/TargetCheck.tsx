@@ -17,9 +17,8 @@ export function TargetCheck({ status }: { status: LiveStatus | null }) {
   const size = status?.display ? { width: status.display.widthPx, height: status.display.heightPx } : stage?.connected ? stage : null;
   const show = async (fx: number, fy: number) => {
     if (shown) await api.hideTarget({ targetId: shown });
-    const w = size?.width ?? 1920;
-    const h = size?.height ?? 1080;
-    const result = await api.showTarget({ x: w * fx, y: h * fy, purpose: 'validation' });
+    if (!size) return;
+    const result = await api.showTarget({ x: size.width * fx, y: size.height * fy, purpose: 'validation' });
     if (result.ok) setShown(result.value.targetId);
     setFailure(result.ok ? null : result);
   };
@@ -27,13 +26,13 @@ export function TargetCheck({ status }: { status: LiveStatus | null }) {
     <section className="panel" aria-labelledby="target-heading">
       <h2 id="target-heading">Target check</h2>
       <div className="button-row">
-        <button type="button" className="secondary" onClick={() => void show(0.5, 0.5)}>
+        <button type="button" className="secondary" disabled={!size} onClick={() => void show(0.5, 0.5)}>
           Target at the centre
         </button>
-        <button type="button" className="secondary" onClick={() => void show(0.1, 0.1)}>
+        <button type="button" className="secondary" disabled={!size} onClick={() => void show(0.1, 0.1)}>
           Top left
         </button>
-        <button type="button" className="secondary" onClick={() => void show(0.9, 0.9)}>
+        <button type="button" className="secondary" disabled={!size} onClick={() => void show(0.9, 0.9)}>
           Bottom right
         </button>
         <button
@@ -48,6 +47,7 @@ export function TargetCheck({ status }: { status: LiveStatus | null }) {
           Hide target
         </button>
       </div>
+      {!size && <p className="muted">Open the stage (Overview) or start a recording to show targets.</p>}
       {failure && <FailureNote failure={failure} />}
     </section>
   );

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { decodeFrame, encodeFrame, FrameError } from '../../../app/contract/wire';
+import { decodeFrame, encodeFrame, FrameError, StreamedFrameReader, streamedFramePrefix } from '../../../app/contract/wire';
 
 describe('wire frames', () => {
   it('round-trips JSON and typed arrays, with every attachment 8-byte aligned', () => {
@@ -48,5 +48,24 @@ describe('wire frames', () => {
     new DataView(frame.buffer).setUint32(0, header.byteLength, true);
     frame.set(header, 4);
     expect(() => decodeFrame(frame)).toThrow(/missing attachment 2/);
+  });
+});
+
+describe('the bulk stream framing', () => {
+  it('cuts frames out of a byte stream however it is chunked', () => {
+    const messages = [1, 2, 3].map((i) => ({ kind: 'event' as const, name: 'onStageEvents', payload: { i, dt: new Uint32Array(1000).fill(i) } }));
+    const bytes = new Uint8Array(
+      messages.flatMap((m) => {
+        const frame = encodeFrame(m);
+        return [...streamedFramePrefix(frame.byteLength), ...frame];
+      }),
+    );
+    for (const step of [1, 7, 64, 4096, bytes.byteLength]) {
+      const reader = new StreamedFrameReader();
+      const out = [];
+      for (let at = 0; at < bytes.byteLength; at += step) out.push(...reader.push(bytes.subarray(at, at + step)));
+      expect(out.map((m) => (m as { payload: { i: number } }).payload.i)).toEqual([1, 2, 3]);
+      expect(Array.from((out[2] as { payload: { dt: Uint32Array } }).payload.dt.slice(0, 2))).toEqual([3, 3]);
+    }
   });
 });

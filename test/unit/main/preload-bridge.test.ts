@@ -41,6 +41,7 @@ describe('the preload bridge', () => {
           "startRecording",
           "stopRecording",
           "playClip",
+          "playTestPattern",
           "pausePlayback",
           "resumePlayback",
           "stopPlayback",
