@@ -29,6 +29,8 @@ export class ClipPlayer {
   private readonly rgba: Uint8ClampedArray;
   private readonly command: Prepare;
   private lastChunkArrived = false;
+  /** Events already handed to the renderer count as received once the queue is empty. */
+  private lastShownUs: number | null = null;
   private startedReported = false;
   /** Frames for which the host's events had not arrived in time. */
   starvedFrames = 0;
@@ -44,6 +46,12 @@ export class ClipPlayer {
 
   get paused(): boolean {
     return this.clock.paused;
+  }
+
+  /** The time of the last event received so far, or null before any. */
+  get receivedUs(): number | null {
+    const last = this.queue.lastUs();
+    return Number.isFinite(last) ? last : this.lastShownUs;
   }
 
   addChunk(chunk: StageEventChunk): void {
@@ -64,7 +72,10 @@ export class ClipPlayer {
     if (hostNs < this.clock.startAtHostNs) return null;
     const stimulusUs = Math.min(this.clock.stimulusUsAt(hostNs), this.command.tEndUs);
     const due = this.queue.take(stimulusUs);
-    if (due.t.length > 0) this.renderer.push(due);
+    if (due.t.length > 0) {
+      this.renderer.push(due);
+      this.lastShownUs = due.t[due.t.length - 1]!;
+    }
     if (!this.lastChunkArrived && this.queue.lastUs() < stimulusUs) this.starvedFrames++;
     this.renderer.render(stimulusUs, this.rgba);
     const started = !this.startedReported;

@@ -35,6 +35,7 @@ export class FrameLog {
   constructor(
     private readonly api: GazeloomApi,
     private readonly clockEstimate: () => { offsetMs: number; uncertaintyMs: number } | null,
+    private readonly received: () => { playbackId: string; lastUs: number | null } | null,
   ) {}
 
   add(entry: Omit<FrameRecordWire, 'frame' | 'late'>): FrameRecordWire {
@@ -51,6 +52,6 @@ export class FrameLog {
     this.lastSend = nowMs;
     const frames = this.pending;
     this.pending = [];
-    void this.api.reportFrames({ frames, clock: this.clockEstimate(), refreshHz: 1000 / this.refresh.nominalMs });
+    void this.api.reportFrames({ frames, clock: this.clockEstimate(), refreshHz: 1000 / this.refresh.nominalMs, received: this.received() });
   }
 }

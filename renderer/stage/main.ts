@@ -16,15 +16,21 @@ const api = connectToHost('stage', (state) => {
   if (state === 'open') queueMicrotask(reportStatus);
 });
 const clock = new StageClock(api);
-const frameLog = new FrameLog(api, () => clock.estimate());
+const frameLog = new FrameLog(
+  api,
+  () => clock.estimate(),
+  () => (player ? { playbackId: player.playbackId, lastUs: player.receivedUs } : null),
+);
 const targets = new TargetLayer();
 const photodiode = new PhotodiodePatch();
 const mouse = new MouseGaze(api, canvas);
 let player: ClipPlayer | null = null;
 let hasPlayed = false;
 // Events and commands travel on different paths in browser mode, so a clip's first events
-// may come before its prepareClip command: they wait here for it.
+// may come before its prepareClip command: they wait here for it. Events of a clip that was
+// stopped may still be on their way; they are dropped.
 const early = new Map<string, StageEventChunk[]>();
+const finished = new Set<string>();
 
 function fitToWindow(): void {
   const ratio = window.devicePixelRatio || 1;
@@ -62,6 +68,7 @@ function onCommand(command: StageCommand): void {
       if (player?.playbackId !== command.playbackId) return;
       if (command.type === 'stopClip') {
         report('stopped', nowHost, null);
+        finished.add(player.playbackId);
         player = null;
       } else if (command.type === 'pauseClip') {
         player.pause(nowHost);
@@ -89,8 +96,9 @@ function onCommand(command: StageCommand): void {
 api.onStageCommand(onCommand);
 api.onStageEvents((chunk) => {
   if (player?.playbackId === chunk.playbackId) return player.addChunk(chunk);
+  if (finished.has(chunk.playbackId)) return;
   const waiting = early.get(chunk.playbackId) ?? [];
-  if (waiting.length < 4096) waiting.push(chunk); // chunks of a stopped clip are dropped at the next prepareClip
+  if (waiting.length < 64) waiting.push(chunk); // the host sends only a little ahead before the stage reports
   early.set(chunk.playbackId, waiting);
 });
 
@@ -131,6 +139,7 @@ function draw(stageTimeMs: number): void {
   }
   if (shown?.ended && player) {
     report('ended', hostNs!, shown.stimulusUs, player.starvedFrames > 0 ? `${player.starvedFrames} frames waited for events` : undefined);
+    finished.add(player.playbackId);
     player = null;
   }
   requestAnimationFrame(draw);

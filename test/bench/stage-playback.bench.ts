@@ -8,11 +8,11 @@ import { createMonotonicClock } from '../../app/host/monotonic-clock';
 import { duration, rate, type Benchmark, type BenchEntry } from './harness';
 import { connectConsole } from './node-contract-client';
 
-const RATES_M = [1, 10, 20, 50];
+const RATES_M = (process.env.GZ_STAGE_RATES ?? '1,10,20,50').split(',').map(Number);
 const SENSORS = [
   { width: 640, height: 480 },
   { width: 1280, height: 720 },
-];
+].filter((s) => !process.env.GZ_STAGE_WIDTH || String(s.width) === process.env.GZ_STAGE_WIDTH);
 const SECONDS = Number(process.env.GZ_STAGE_SECONDS ?? 10);
 
 /**
@@ -29,7 +29,7 @@ export const benchmark: Benchmark = {
     const mode = await startBrowserMode({ port: 0, dataDir, rendererDir, clock: createMonotonicClock(), log: createHostLog({ file: null, echo: false }), noDemo: true });
     const browser = await chromium.launch({
       executablePath: process.env.GAZELOOM_CHROMIUM ?? '/usr/bin/chromium',
-      args: ['--no-sandbox', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-quic', '--no-first-run'],
+      args: ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--disable-quic', '--no-first-run'],
     });
     const stage = await (await browser.newContext({ viewport: { width: 1280, height: 720 } })).newPage();
     await stage.goto(`${mode.origin}/stage/?token=${mode.token}`);

@@ -73,6 +73,8 @@ export const reportFramesRequest = z
     frames: z.array(frameRecord).max(10_000),
     clock: z.object({ offsetMs: finite, uncertaintyMs: finite }).nullable(),
     refreshHz: finite,
+    /** The time of the last event the stage has received of the clip playing: the host streams only so far ahead of it. */
+    received: z.object({ playbackId: z.string(), lastUs: finite.nullable() }).nullable(),
   })
   .strict();
 

@@ -25,8 +25,8 @@ const failure = (error: unknown) => fail('conflict', (error as Error).message);
 /** Recording, playback on the stage, and the stage's reports back to the host. */
 export function liveHandlers(live: LiveSession, recovered: RecoveredSessions): Pick<GazeloomHandlers, LiveChannels> {
   return {
-    reportFrames: ({ frames, clock }) => {
-      live.frames(frames, clock);
+    reportFrames: ({ frames, clock, received }) => {
+      live.frames(frames, clock, received);
       return {};
     },
     reportPlayback: async (report) => {

@@ -163,7 +163,7 @@ export class LiveSession {
   }
 
   /** The stage's frame log batch. */
-  frames(frames: readonly FrameRecordWire[], clock: { offsetMs: number; uncertaintyMs: number } | null): void {
+  frames(frames: readonly FrameRecordWire[], clock: { offsetMs: number; uncertaintyMs: number } | null, received: { playbackId: string; lastUs: number | null } | null): void {
     this.framesTotal += frames.length;
     this.framesLate += frames.reduce((n, f) => n + (f.late ? 1 : 0), 0);
     if (clock) this.stageClockUncertaintyMs = clock.uncertaintyMs;
@@ -179,7 +179,7 @@ export class LiveSession {
     }
     const playback = this.scheduler.playback;
     const last = [...frames].reverse().find((f) => f.clip !== null && f.stimulusUs !== null);
-    if (playback && last?.stimulusUs != null) this.scheduler.progress(playback.playbackId, last.stimulusUs);
+    if (playback) this.scheduler.progress(playback.playbackId, last?.stimulusUs ?? null, received?.playbackId === playback.playbackId ? received.lastUs : null);
   }
 
   /** The stage reported a playback state change (its host time is the frame's). */

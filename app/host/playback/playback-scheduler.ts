@@ -23,8 +23,13 @@ export interface Playback {
   stimulusUs: number | null;
 }
 
-/** Stimulus time the stage should hold, past what it has shown, and the lead before the first frame. */
+/**
+ * How far ahead of the stage the host streams, in stimulus time: past what it has shown,
+ * and past what it reports having received (so a stage that cannot keep up is never
+ * buried under data in flight); and the lead before the first frame.
+ */
 const AHEAD_US = 600_000;
+const IN_FLIGHT_US = 300_000;
 const LEAD_NS = 400e6;
 
 /**
@@ -35,7 +40,7 @@ const LEAD_NS = 400e6;
  * of any length plays from a file of any size.
  */
 export class PlaybackScheduler {
-  private current: { playback: Playback; reader: ChunkSource; nextChunk: number; pumping: boolean } | null = null;
+  private current: { playback: Playback; reader: ChunkSource; nextChunk: number; pumping: boolean; receivedUs: number | null } | null = null;
   private nextId = 1;
 
   constructor(
@@ -66,7 +71,7 @@ export class PlaybackScheduler {
       state: 'starting',
       stimulusUs: null,
     };
-    this.current = { playback, reader, nextChunk: 0, pumping: false };
+    this.current = { playback, reader, nextChunk: 0, pumping: false, receivedUs: null };
     this.toStage.command({
       type: 'prepareClip',
       playbackId: playback.playbackId,
@@ -83,11 +88,12 @@ export class PlaybackScheduler {
     return playback;
   }
 
-  /** The stage has shown stimulus time t: keep the window ahead of it filled. */
-  progress(playbackId: string, stimulusUs: number): void {
+  /** The stage has shown stimulus time t and received events up to receivedUs: keep the window ahead filled. */
+  progress(playbackId: string, stimulusUs: number | null, receivedUs: number | null): void {
     const c = this.current;
     if (!c || c.playback.playbackId !== playbackId) return;
-    c.playback.stimulusUs = stimulusUs;
+    if (stimulusUs !== null) c.playback.stimulusUs = stimulusUs;
+    if (receivedUs !== null) c.receivedUs = receivedUs;
     void this.pump();
   }
 
@@ -125,7 +131,8 @@ export class PlaybackScheduler {
     c.pumping = true;
     try {
       const source = c.reader;
-      const wanted = () => (c.playback.stimulusUs ?? source.tStartUs) + AHEAD_US; // progress may arrive while reading
+      // Recomputed for every chunk: progress may arrive while reading.
+      const wanted = () => Math.min((c.playback.stimulusUs ?? source.tStartUs) + AHEAD_US, (c.receivedUs ?? source.tStartUs) + AHEAD_US + IN_FLIGHT_US);
       while (this.current === c && c.nextChunk < source.chunkCount && source.chunkStartUs(c.nextChunk) <= wanted()) {
         const k = c.nextChunk++;
         const chunk = await source.read(k);
