@@ -28,6 +28,20 @@ test('the console renders its main screen and the stage draws on its canvas', as
   await expect(page.getByTestId('stage-status')).toContainText('drawing with WebGL2');
 });
 
+test('the stage falls back to Canvas 2D and draws the same resting screen', async ({ host, page, context }) => {
+  await page.goto(host.url);
+  const stage = await context.newPage();
+  await stage.goto(`${host.origin}/stage/?renderer=canvas2d`);
+  await expect(stage.locator('body')).toHaveAttribute('data-renderer', 'canvas2d');
+  const pixels = await stage.evaluate(() => {
+    const canvas = document.getElementById('stage') as HTMLCanvasElement;
+    const context2d = canvas.getContext('2d')!;
+    const at = (x: number, y: number) => Array.from(context2d.getImageData(x, y, 1, 1).data.slice(0, 3));
+    return { corner: at(5, 5), centre: at(Math.floor(canvas.width / 2), Math.floor(canvas.height / 2)) };
+  });
+  expect(pixels).toEqual({ corner: [128, 128, 128], centre: [96, 96, 96] });
+});
+
 test('requests without the launch token get 401 and are logged', async ({ host, request }) => {
   const bare = await request.get(`${host.origin}/console/`, { headers: { cookie: '' } });
   expect(bare.status()).toBe(401);
