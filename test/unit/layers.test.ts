@@ -29,7 +29,7 @@ function classify(file: string, specifier: string): Target {
 }
 
 /** npm packages app/core may use: pure computation with no runtime API of their own. */
-const purePackages = new Set<string>([]);
+const purePackages = new Set<string>(['zod']);
 /** The contract may use only zod besides app/core. */
 const contractPackages = new Set(['zod']);
 

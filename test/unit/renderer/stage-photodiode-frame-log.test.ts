@@ -26,14 +26,14 @@ describe('the photodiode patch', () => {
 
 describe('the frame log', () => {
   it('numbers frames, flags the late ones and sends them in batches with the clock estimate', () => {
-    const reportFrames = vi.fn(async () => ({ ok: true }));
+    const reportFrames = vi.fn(async (_request: unknown) => ({ ok: true }));
     const log = new FrameLog({ reportFrames } as never, () => ({ offsetMs: 5, uncertaintyMs: 0.2 }), () => null);
     const times = [0, 16.7, 33.4, 50.1, 66.8, 83.5, 100.2, 116.9, 133.6, 150.3, 167, 217, 233.7]; // one 50 ms gap
     const records = times.map((t) => log.add({ stageTimeMs: t, hostNs: t * 1e6, clip: 'aisle', stimulusUs: t * 1000, eventsDrawn: 3, photodiode: null }));
     expect(records.map((r) => r.frame)).toEqual(times.map((_, i) => i));
     expect(records.filter((r) => r.late).map((r) => r.stageTimeMs)).toEqual([217]);
     expect(reportFrames).toHaveBeenCalled();
-    const first = reportFrames.mock.calls[0]![0] as unknown as { frames: unknown[]; clock: unknown };
+    const first = reportFrames.mock.calls[0]![0] as { frames: unknown[]; clock: unknown };
     expect(first.clock).toEqual({ offsetMs: 5, uncertaintyMs: 0.2 });
     expect(first.frames.length).toBeGreaterThan(0);
   });
