@@ -8,11 +8,17 @@ import { z } from 'zod';
 import { channel, hostEvent, type ClientApi, type HostHandlers } from './contract/define';
 import { empty } from './contract/schemas/common';
 import * as app from './contract/schemas/app';
+import * as archive from './contract/schemas/archive';
 import * as files from './contract/schemas/files';
+import * as gazeCalibration from './contract/schemas/gaze-calibration';
 import * as jobs from './contract/schemas/jobs';
 import * as live from './contract/schemas/live';
+import * as preflight from './contract/schemas/preflight';
+import * as quality from './contract/schemas/quality';
+import * as safety from './contract/schemas/safety';
 import * as stage from './contract/schemas/stage';
 import * as stimuli from './contract/schemas/stimuli';
+import * as targets from './contract/schemas/targets';
 
 export const channels = {
   getAppInfo: channel({ request: empty, response: app.appInfo, summary: 'Version, mode and data folder of the running host' }),
@@ -28,7 +34,7 @@ export const channels = {
   getStimulusStats: channel({ request: stimuli.stimulusId, response: stimuli.eventStats, summary: 'Statistics of one stimulus' }),
   importStimulus: channel({ request: stimuli.importRequest, response: jobs.jobStarted, summary: 'Import an event file from the host into the library (a job)' }),
   operateOnStimulus: channel({ request: stimuli.operateRequest, response: jobs.jobStarted, summary: 'Trim, crop or filter a stimulus into a new one (a job)' }),
-  updateStimulus: channel({ request: stimuli.updateStimulusRequest, response: stimuli.stimulusMeta, summary: 'Rename a stimulus, edit its notes or flash mark' }),
+  updateStimulus: channel({ request: stimuli.updateStimulusRequest, response: stimuli.stimulusMeta, summary: 'Rename a stimulus or edit its notes' }),
   removeStimulus: channel({ request: stimuli.stimulusId, response: empty, summary: 'Move a stimulus to the library trash' }),
   restoreStimulus: channel({ request: stimuli.stimulusId, response: stimuli.stimulusMeta, summary: 'Bring a removed stimulus back' }),
   readStimulusEvents: channel({ request: stimuli.eventWindowRequest, response: stimuli.eventWindow, summary: 'Events of a stimulus in a time window, for previews' }),
@@ -47,6 +53,18 @@ export const channels = {
   resumeRecording: channel({ request: live.resumeRecordingRequest, response: live.startRecordingResponse, summary: 'Append to a recovered recording' }),
   showTarget: channel({ request: live.showTargetRequest, response: live.showTargetResponse, summary: 'Show a target on the stage (recorded; sent to the tracker bridge)' }),
   hideTarget: channel({ request: live.hideTargetRequest, response: empty, summary: 'Remove a target from the stage' }),
+  blankStage: channel({ request: safety.blankStageRequest, response: safety.blankStageResponse, summary: 'Blank the stage to mid-grey and pause everything at once (recorded); from the console or the stage key' }),
+  unblankStage: channel({ request: empty, response: safety.blankStageResponse, summary: 'End the blank (console only, recorded); the paused clip stays paused' }),
+  backupLabArchive: channel({ request: archive.backupRequest, response: archive.backupResponse, summary: 'Write a lab archive (folder or .zip) of the given tables and session recordings' }),
+  listLabBackups: channel({ request: empty, response: archive.backupList, summary: 'The lab archives in the backups folder of the data folder, newest first' }),
+  inspectLabArchive: channel({ request: archive.archivePathRequest, response: z.object({ manifest: archive.archiveManifest }), summary: 'Read the manifest of a lab archive' }),
+  restoreLabArchive: channel({ request: archive.archivePathRequest, response: archive.restoreResponse, summary: 'Verify a lab archive, copy its recordings into the data folder and return its tables' }),
+  getDemoStudy: channel({ request: empty, response: archive.demoStudy, summary: 'The demo study built on first run (invented data), when it is ready' }),
+  runTargetProcedure: channel({ request: targets.runTargetProcedureRequest, response: targets.runTargetProcedureResponse, summary: 'Show calibration, validation or drift-check targets one by one and measure the gaze at each (resolves when done)' }),
+  cancelTargetProcedure: channel({ request: empty, response: empty, summary: 'End the running target procedure' }),
+  setGazeCalibration: channel({ request: gazeCalibration.setGazeCalibrationRequest, response: gazeCalibration.setGazeCalibrationResponse, summary: "Map a raw-coordinate source's samples to screen px with Gazeloom's calibration (null stops), recorded in the session" }),
+  getPreflight: channel({ request: preflight.preflightRequest, response: preflight.preflightResponse, summary: 'Free disk space for the recordings against what a session of that length needs' }),
+  getSessionQuality: channel({ request: quality.sessionQualityRequest, response: quality.sessionQualityResponse, summary: 'Quality over time of a session recording: data loss and late frames per bin, and the gaze for plots when asked' }),
 } as const;
 
 export const events = {
@@ -73,5 +91,6 @@ export type { LiveStatus, GazeSourceChoice } from './contract/schemas/live';
 export type RecoveredSessionInfo = import('zod').infer<typeof live.recoveredSession>;
 export type { StageCommand, StageEventChunk, FrameRecordWire } from './contract/schemas/stage';
 export type { DirectoryListing } from './contract/schemas/files';
-export type { StimulusMeta, EventStats, StimulusOperation } from './contract/schemas/stimuli';
+export type { PreflightReport } from './contract/schemas/preflight';
+export type { StimulusMeta, EventStats, StimulusOperation, FlashScreening } from './contract/schemas/stimuli';
 export type { AppInfo, DisplayInfo, StageStatus, StageStatusEvent, FirstRunTask } from './contract/schemas/app';

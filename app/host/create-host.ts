@@ -6,7 +6,11 @@ import type { HostClock } from '../core/clock/host-clock';
 import { dataFolderJob } from './data-folder-job';
 import { FirstRunQueue, type FirstRunJob } from './first-run';
 import { appHandlers } from './handlers/app-handlers';
+import { archiveHandlers } from './handlers/archive-handlers';
+import { DemoStudyCache } from './demo/demo-study-cache';
 import { liveHandlers } from './handlers/live-handlers';
+import { preflightHandlers } from './handlers/preflight-handlers';
+import { qualityHandlers } from './handlers/quality-handlers';
 import { stimulusHandlers } from './handlers/stimulus-handlers';
 import { JobRunner } from './jobs';
 import { displayGeometry, gazeSourceChoice } from '../contract/schemas/live';
@@ -16,6 +20,7 @@ import { SessionRecorder } from './recording/session-recorder';
 import type { HostLog } from './log';
 import type { StagePresenter } from './stage-presenter';
 import { demoClipsJob } from './stimuli/demo-clips';
+import { FlashScreeningService } from './stimuli/flash-screening';
 import { StimulusService } from './stimuli/stimulus-service';
 import { StimulusStore } from './stimuli/stimulus-store';
 import { appVersion } from './version';
@@ -56,7 +61,8 @@ export function createHost(options: HostOptions): Host {
   const jobs = new JobRunner((status) => hub.emit('onJobProgress', status), log);
   const store = new StimulusStore(options.dataDir, log);
   const changed = (ids: string[]) => hub.emit('onStimuliChanged', { ids });
-  const stimuli = new StimulusService(store, jobs, changed);
+  const flashScreening = new FlashScreeningService(store, jobs, changed);
+  const stimuli = new StimulusService(store, jobs, changed, (id) => flashScreening.start(id));
   const clockOriginNs = (clock as { originNs?: bigint }).originNs ?? null;
   const recordingsDir = join(options.dataDir, 'recordings');
   const recovered = new RecoveredSessions(recordingsDir);
@@ -79,6 +85,9 @@ export function createHost(options: HostOptions): Host {
   firstRun.add(dataFolderJob(options.dataDir));
   firstRun.add(recovered.job());
   if (!options.noDemo) firstRun.add(demoClipsJob(store, changed));
+  firstRun.add(flashScreening.job());
+  const demoStudy = new DemoStudyCache(options.dataDir, recordingsDir, !options.noDemo);
+  if (!options.noDemo) firstRun.add(demoStudy.job());
   for (const job of options.firstRunJobs ?? []) firstRun.add(job);
 
   const info: AppInfo = {
@@ -91,9 +100,25 @@ export function createHost(options: HostOptions): Host {
   };
   const stageStatuses = new Map<string, StageStatus>();
   const handlers: GazeloomHandlers = {
-    ...appHandlers({ info, clock, log, stage: options.stage, hub, firstRun, stageStatuses }),
+    ...appHandlers({
+      info,
+      clock,
+      log,
+      stage: options.stage,
+      hub,
+      firstRun,
+      stageStatuses,
+      // A stage page reloaded during a blank must come back blank.
+      stageReported: () => {
+        const blank = live.blank;
+        if (blank) live.blankStage(blank.by, blank.reason);
+      },
+    }),
     ...stimulusHandlers({ store, service: stimuli, jobs, changed }),
     ...liveHandlers(live, recovered),
+    ...archiveHandlers({ dataDir: options.dataDir, recordingsDir, demo: demoStudy }),
+    ...preflightHandlers(recordingsDir),
+    ...qualityHandlers(recordingsDir),
   };
   const dispatch = createDispatcher(channels, handlers, log);
 

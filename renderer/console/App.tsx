@@ -1,6 +1,15 @@
 import { useHost } from './host-context';
+import { ArchiveScreen } from './archive/ArchiveScreen';
 import { JobsTray } from './jobs/JobsTray';
+import { LabBar } from './lab/LabBar';
+import { LabGate } from './lab/LabGate';
+import { ParticipantsScreen } from './participants/ParticipantsScreen';
+import { ProtocolsScreen } from './protocols/ProtocolsScreen';
+import { SessionScreen } from './session/SessionScreen';
+import { QualityScreen } from './quality/QualityScreen';
+import { StudyScreen } from './study/StudyScreen';
 import { LiveScreen } from './live/LiveScreen';
+import { StageBlankButton } from './live/StageBlankButton';
 import { Overview } from './overview/Overview';
 import { StimulusLibrary } from './stimuli/StimulusLibrary';
 import { screens, useRoute } from './use-route';
@@ -31,10 +40,21 @@ export function App() {
         <span className={`connection connection-${connection}`} role="status" aria-live="polite">
           {connection === 'open' ? 'host connected' : connection === 'connecting' ? 'connecting to host…' : 'host disconnected: reconnecting'}
         </span>
+        <StageBlankButton />
+        <LabBar />
       </header>
+      <LabGate screen={screen}>
       {screen === 'overview' && <Overview />}
       {screen === 'stimuli' && <StimulusLibrary />}
       {screen === 'live' && <LiveScreen />}
+      {screen === 'study' && <StudyScreen />}
+      {screen === 'participants' && <ParticipantsScreen />}
+      {screen === 'protocols' && <ProtocolsScreen />}
+      {screen === 'session' && <SessionScreen />}
+      {screen === 'quality' && <QualityScreen />}
+      </LabGate>
+      {/* Outside the gate: an empty profile can be restored from a backup before any set-up. */}
+      {screen === 'archive' && <ArchiveScreen />}
       <JobsTray />
     </div>
   );

@@ -4,6 +4,12 @@ export const screens = [
   { id: 'overview', label: 'Overview', key: '1' },
   { id: 'stimuli', label: 'Stimuli', key: '2' },
   { id: 'live', label: 'Live', key: '3' },
+  { id: 'study', label: 'Study', key: '4' },
+  { id: 'participants', label: 'Participants', key: '5' },
+  { id: 'protocols', label: 'Protocols', key: '6' },
+  { id: 'session', label: 'Session', key: '7' },
+  { id: 'quality', label: 'Quality', key: '9' },
+  { id: 'archive', label: 'Backups', key: '8' },
 ] as const;
 
 export type ScreenId = (typeof screens)[number]['id'];

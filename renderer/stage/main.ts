@@ -5,6 +5,7 @@ import { FrameLog } from './frame-log';
 import { drawIdleScreen, restingGrey } from './idle-screen';
 import { MouseGaze } from './mouse-gaze';
 import { PhotodiodePatch } from './photodiode';
+import { StageBlank } from './stage-blank';
 import { StageClock } from './stage-clock';
 import { createSurface } from './surface';
 import { TargetLayer } from './targets';
@@ -13,7 +14,10 @@ const canvas = document.getElementById('stage') as HTMLCanvasElement;
 const surface = createSurface(canvas, new URLSearchParams(location.search).get('renderer') === 'canvas2d' ? 'canvas2d' : 'webgl2');
 // Each (re)connection is a new page to the host, so the status is reported again on open.
 const api = connectToHost('stage', (state) => {
-  if (state === 'open') queueMicrotask(reportStatus);
+  if (state === 'open') queueMicrotask(() => {
+    reportStatus();
+    blank.reconnected();
+  });
 });
 const clock = new StageClock(api);
 const frameLog = new FrameLog(
@@ -26,6 +30,13 @@ const photodiode = new PhotodiodePatch();
 const mouse = new MouseGaze(api, canvas);
 let player: ClipPlayer | null = null;
 let hasPlayed = false;
+const blank = new StageBlank(api, () => {
+  const nowHost = clock.toHostNs(performance.now()) ?? 0;
+  if (player && !player.paused) {
+    player.pause(nowHost);
+    report('paused', nowHost, null);
+  }
+});
 // Events and commands travel on different paths in browser mode, so a clip's first events
 // may come before its prepareClip command: they wait here for it. Events of a clip that was
 // stopped may still be on their way; they are dropped.
@@ -71,9 +82,11 @@ function onCommand(command: StageCommand): void {
         finished.add(player.playbackId);
         player = null;
       } else if (command.type === 'pauseClip') {
+        if (player.paused) return; // the stage key paused it already
         player.pause(nowHost);
         report('paused', nowHost, null);
       } else {
+        if (!player.paused) return;
         player.resume(nowHost);
         report('resumed', nowHost, null);
       }
@@ -89,6 +102,9 @@ function onCommand(command: StageCommand): void {
       break;
     case 'setMouseGaze':
       mouse.setEnabled(command.enabled);
+      break;
+    case 'setBlank':
+      blank.set(command.blanked);
       break;
   }
 }
@@ -108,6 +124,12 @@ function draw(stageTimeMs: number): void {
   const hostNs = clock.toHostNs(stageTimeMs);
   surface.clear(restingGrey);
   let shown = null;
+  // Blanked: mid-grey and nothing else, not even the photodiode patch.
+  if (blank.blanked) {
+    if (hostNs !== null) frameLog.add({ stageTimeMs, hostNs, clip: null, stimulusUs: null, eventsDrawn: 0, photodiode: null, drawMs: performance.now() - drawStart });
+    requestAnimationFrame(draw);
+    return;
+  }
   if (player && hostNs !== null) {
     shown = player.frame(hostNs, { widthPx: canvas.width, heightPx: canvas.height });
     if (shown) {
@@ -154,4 +176,6 @@ window.addEventListener('resize', () => {
   reportStatus();
 });
 document.addEventListener('visibilitychange', reportStatus);
+blank.listen(window);
+document.body.dataset.blanked = 'false';
 requestAnimationFrame(draw);

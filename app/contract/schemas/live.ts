@@ -1,5 +1,6 @@
 import { z } from 'zod';
 import { finite, nonNegativeInt, positiveInt } from './common';
+import { stageBlank } from './safety';
 import { lookName, placementMode } from './stage';
 import { stimulusIdField } from './stimuli';
 
@@ -69,6 +70,8 @@ export const liveStatus = z.object({
   display: displayGeometry.nullable(),
   /** The frames of the clip playing now, or of the last one: how many, how many late, and the stage's draw time per frame. */
   clipFrames: z.object({ frames: nonNegativeInt, late: nonNegativeInt, drawMsP50: finite.nullable(), drawMsP99: finite.nullable() }).nullable(),
+  /** The stage is blanked (null: it is not). */
+  blank: stageBlank.nullable(),
 });
 
 export const playTestPatternRequest = z

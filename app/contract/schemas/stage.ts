@@ -38,6 +38,8 @@ export const stageCommand = z.discriminatedUnion('type', [
   z.object({ type: z.literal('hideTarget'), id: z.string() }),
   z.object({ type: z.literal('setPhotodiode'), enabled: z.boolean() }),
   z.object({ type: z.literal('setMouseGaze'), enabled: z.boolean() }),
+  /** Blank: mid-grey over everything until unblanked (the clip is paused by its own command). */
+  z.object({ type: z.literal('setBlank'), blanked: z.boolean() }),
 ]);
 
 /**

@@ -14,6 +14,29 @@ export const stimulusSource = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('operation'), parentId: stimulusIdField, operation: z.string(), parameters: z.record(z.string(), z.union([z.number(), z.string(), z.boolean()])) }),
 ]);
 
+/** The flash screening's result (app/core/safety), field for field as `gazeloom events flash-check --json` prints it. */
+export const flashRegion = z.object({
+  x_px: finite,
+  y_px: finite,
+  width_px: finite,
+  height_px: finite,
+  left_deg: finite,
+  top_deg: finite,
+  right_deg: finite,
+  bottom_deg: finite,
+  solid_angle_sr: finite,
+});
+export const flashFailure = z.object({ start_s: finite, end_s: finite, region: flashRegion, flashes_per_s: finite, kind: z.enum(['general', 'red']) });
+const flashDisplay = z.object({ widthMm: finite, heightMm: finite, widthPx: positiveInt, heightPx: positiveInt, distanceMm: finite });
+export const flashLookResult = z.object({ look: z.enum(['polarity', 'decay', 'grey']), pass: z.boolean(), failures: z.array(flashFailure), frames: nonNegativeInt });
+/** The library screens each clip in every look with the same viewing; it passes when every look passes. */
+export const flashScreening = z.object({
+  pass: z.boolean(),
+  looks: z.array(flashLookResult),
+  analysedWith: z.object({ speed: finite, placement: z.enum(['fit', '1:1', 'integer']), display: flashDisplay, rateHz: finite, analyserVersion: z.number().int(), cellSideDeg: finite }),
+  analysedAt: z.string(),
+});
+
 export const stimulusMeta = z.object({
   id: stimulusIdField,
   name: z.string().min(1).max(200),
@@ -26,8 +49,10 @@ export const stimulusMeta = z.object({
   tStartUs: finite,
   tEndUs: finite,
   durationS: finite,
-  /** Set by hand in the library until the flash analyser rates every clip. */
+  /** Derived from `flash`: true when the screening fails or has not run yet (kept for the study records that mirror it). */
   mayFlash: z.boolean(),
+  /** The flash screening (flash.json beside stats.json); missing or null until it has run. */
+  flash: flashScreening.nullable().optional(),
   demo: z.boolean(),
   hasTracks: z.boolean(),
   warnings: z.array(z.string()),
@@ -72,7 +97,7 @@ export const stimulusOperation = z.discriminatedUnion('operation', [
 export const operateRequest = z.object({ id: stimulusIdField, name: z.string().max(200).optional(), apply: stimulusOperation }).strict();
 
 export const updateStimulusRequest = z
-  .object({ id: stimulusIdField, name: z.string().min(1).max(200).optional(), notes: z.string().max(10000).optional(), mayFlash: z.boolean().optional() })
+  .object({ id: stimulusIdField, name: z.string().min(1).max(200).optional(), notes: z.string().max(10000).optional() })
   .strict();
 
 export const stimulusId = z.object({ id: stimulusIdField }).strict();
@@ -96,6 +121,7 @@ export const eventColumns = z
 export const eventWindow = z.object({ events: eventColumns, truncated: z.boolean() });
 
 export type StimulusMeta = z.infer<typeof stimulusMeta>;
+export type FlashScreening = z.infer<typeof flashScreening>;
 export type EventStats = z.infer<typeof eventStats>;
 export type StimulusOperation = z.infer<typeof stimulusOperation>;
 export type ImportRequest = z.infer<typeof importRequest>;

@@ -69,6 +69,13 @@ export const protocolRecord = z.object({
   /** Clip display: look and speed. */
   look: z.enum(['polarity', 'decay', 'grey']),
   speed: finite.min(0.1).max(1),
+  /** Rest limits in minutes (app/core/study/rest-limits.ts); missing: the defaults 20/40/2/60. */
+  restLimits: z
+    .object({ warnAfterMin: finite.min(1).max(600), requireRestAfterMin: finite.min(1).max(600), requiredRestMin: finite.min(0.5).max(60), sessionWarnAfterMin: finite.min(1).max(1440) })
+    .refine((l) => l.warnAfterMin <= l.requireRestAfterMin, { message: 'the viewing warning must come no later than the required rest', path: ['warnAfterMin'] })
+    .optional(),
+  /** Clips of the steps that may flash when saved: the protocol runs only participants cleared in photosensitivity screening. */
+  flashingStimulusIds: z.array(id).max(500).optional(),
   createdAt: iso,
   updatedAt: iso,
 });
@@ -191,6 +198,35 @@ export const validationRecord = z.object({
   accepted: z.boolean(),
 });
 
+/**
+ * A post-hoc correction of one session's gaze, fitted on its validations and drift checks.
+ * Never destructive: the recorded gaze stays as it was; analysis and release apply the
+ * correction only while it is enabled, and say so. Removing it keeps the record (enabled
+ * false, removedAt set) as provenance.
+ */
+export const correctionModels = ['offset', 'offset_interpolated', 'affine', 'polynomial2'] as const;
+
+export const correctionRecord = z.object({
+  id,
+  sessionId: id,
+  model: z.enum(correctionModels),
+  /**
+   * Parameters in screen px (app/core/quality/correction): offset {dx, dy} (added to the gaze);
+   * offset_interpolated {knots: [{hostNs, dx, dy}]}; affine {ax: [3], ay: [3]} (terms 1, x, y);
+   * polynomial2 {ax: [6], ay: [6]} (terms 1, x, y, xy, x², y²), with x and y normalised
+   * as params.centre and params.scale say.
+   */
+  params: z.record(z.string(), z.unknown()),
+  /** Provenance: which checks it was fitted on and which were held out to judge it. */
+  fromValidationIds: z.array(id),
+  heldOutValidationIds: z.array(id),
+  fit: z.object({ points: z.number().int(), rmsResidualPx: finite.nullable(), heldOutErrorBeforeDeg: finite.nullable(), heldOutErrorAfterDeg: finite.nullable() }),
+  createdAt: iso,
+  createdBy: id,
+  enabled: z.boolean(),
+  removedAt: iso.nullable(),
+});
+
 export const noteRecord = z.object({
   id,
   sessionId: id.nullable(),
@@ -257,6 +293,7 @@ export const tables = {
   trials: trialRecord,
   calibrations: calibrationRecord,
   validations: validationRecord,
+  corrections: correctionRecord,
   notes: noteRecord,
   exclusions: exclusionRecord,
   releases: releaseRecord,
@@ -274,4 +311,6 @@ export type SessionRecord = RecordOf<'sessions'>;
 export type TrialRecord = RecordOf<'trials'>;
 export type ValidationRecord = RecordOf<'validations'>;
 export type TargetResult = z.infer<typeof targetResult>;
+export type CorrectionRecord = RecordOf<'corrections'>;
+export type CorrectionModel = CorrectionRecord['model'];
 export type KeyringRecord = RecordOf<'settings'>;

@@ -17,10 +17,12 @@ interface Deps {
   readonly firstRun: FirstRunQueue;
   /** Last status each stage connection reported, by connection id. */
   readonly stageStatuses: Map<string, StageStatus>;
+  /** Called after each stage report, so a stage page that (re)connects gets the state it must show. */
+  readonly stageReported?: () => void;
 }
 
 /** The installation, clocks, displays and the stage's presence. */
-export function appHandlers({ info, clock, log, stage, hub, firstRun, stageStatuses }: Deps): Pick<GazeloomHandlers, AppChannels> {
+export function appHandlers({ info, clock, log, stage, hub, firstRun, stageStatuses, stageReported }: Deps): Pick<GazeloomHandlers, AppChannels> {
   return {
     getAppInfo: () => info,
     ping: () => {
@@ -33,6 +35,7 @@ export function appHandlers({ info, clock, log, stage, hub, firstRun, stageStatu
       stageStatuses.set(context.connectionId, status);
       if (!status.visible) log.warn('stage.hidden', { connection: context.connectionId });
       hub.emit('onStageStatus', { ...status, connected: true });
+      stageReported?.();
       return {};
     },
     getStageStatus: () => {

@@ -2,6 +2,7 @@ import type { GazeloomHandlers } from '../../contract';
 import { fail } from '../../contract/result';
 import type { LiveSession } from '../live/live-session';
 import type { RecoveredSessions } from '../live/recovered-sessions';
+import { TargetProcedures } from '../live/target-procedure';
 
 type LiveChannels =
   | 'reportFrames'
@@ -18,12 +19,18 @@ type LiveChannels =
   | 'listRecoveredSessions'
   | 'resumeRecording'
   | 'showTarget'
-  | 'hideTarget';
+  | 'hideTarget'
+  | 'runTargetProcedure'
+  | 'cancelTargetProcedure'
+  | 'setGazeCalibration'
+  | 'blankStage'
+  | 'unblankStage';
 
 const failure = (error: unknown) => fail('conflict', (error as Error).message);
+const blanked = () => fail('conflict', 'the stage is blanked: unblank it first (the Unblank stage button)');
 
 /** Recording, playback on the stage, and the stage's reports back to the host. */
-export function liveHandlers(live: LiveSession, recovered: RecoveredSessions): Pick<GazeloomHandlers, LiveChannels> {
+export function liveHandlers(live: LiveSession, recovered: RecoveredSessions, targets = new TargetProcedures(live)): Pick<GazeloomHandlers, LiveChannels> {
   return {
     reportFrames: ({ frames, clock, received }) => {
       live.frames(frames, clock, received);
@@ -71,6 +78,7 @@ export function liveHandlers(live: LiveSession, recovered: RecoveredSessions): P
       return {};
     },
     resumePlayback: () => {
+      if (live.blank) return blanked();
       live.scheduler.resume();
       return {};
     },
@@ -92,10 +100,33 @@ export function liveHandlers(live: LiveSession, recovered: RecoveredSessions): P
         return failure(error);
       }
     },
-    showTarget: ({ x, y, purpose }) => ({ targetId: live.showTarget(x, y, purpose) }),
+    showTarget: ({ x, y, purpose }) => (live.blank ? blanked() : { targetId: live.showTarget(x, y, purpose) }),
     hideTarget: ({ targetId }) => {
       live.hideTarget(targetId);
       return {};
+    },
+    runTargetProcedure: (request) => (live.blank ? blanked() : targets.run(request)),
+    cancelTargetProcedure: () => {
+      targets.cancel();
+      return {};
+    },
+    // The stage key calls blankStage from the stage page; only the console ends a blank.
+    blankStage: ({ reason }, context) => {
+      const blank = live.blankStage(context.page === 'stage' ? 'stage_key' : 'console', reason);
+      targets.cancel();
+      return { blank };
+    },
+    unblankStage: (_request, context) => {
+      if (context.page !== 'console') return fail('untrusted_sender', 'only the operator console can end a blank');
+      live.unblankStage();
+      return { blank: null };
+    },
+    setGazeCalibration: ({ params, calibrationId }) => {
+      try {
+        return live.setGazeCalibration(params, calibrationId);
+      } catch (error) {
+        return failure(error);
+      }
     },
   };
 }

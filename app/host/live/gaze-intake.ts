@@ -1,7 +1,8 @@
 import type { HostNs } from '../../core/clock/host-clock';
 import { TrackerClockFit } from '../../core/clock/tracker-clock-fit';
-import type { GazeHello, GazeSample } from '../../core/gaze/gaze-sample';
+import type { EyeSample, GazeHello, GazeSample } from '../../core/gaze/gaze-sample';
 import { LiveMonitor } from '../../core/live/live-monitor';
+import { applyRawCalibration, type RawCalibrationParams } from '../../core/quality/correction/raw-calibration';
 import { MESSAGE_KINDS } from '../../core/recording/message-kinds';
 import type { GazeRecord, MessageRecord } from '../../core/recording/records';
 import type { GazeSink } from '../gaze/gaze-source';
@@ -19,13 +20,22 @@ export class GazeIntake implements GazeSink {
   helloSeen: GazeHello | null = null;
   connected = false;
   private readonly sink: RecordingSink;
+  private readonly taps = new Set<(record: GazeRecord) => void>();
   private ended = false;
+  private calibration: RawCalibrationParams | null = null;
 
   constructor(
     private readonly recorder: { appendGaze(r: GazeRecord): void; appendMessage(r: MessageRecord): void },
     private readonly nowNs: () => number,
   ) {
-    this.sink = createRecordingSink(recorder, {
+    const tapped = {
+      appendGaze: (r: GazeRecord) => {
+        recorder.appendGaze(r);
+        for (const tap of this.taps) tap(r);
+      },
+      appendMessage: (r: MessageRecord) => recorder.appendMessage(r),
+    };
+    this.sink = createRecordingSink(tapped, {
       nowNs,
       toHostNs: (trackerTimeS: number, arrivalNs: HostNs) => {
         this.fit.add(trackerTimeS, arrivalNs / 1e9);
@@ -42,6 +52,16 @@ export class GazeIntake implements GazeSink {
     return this.sink.garbageLines;
   }
 
+  /**
+   * Hands every sample from now on to `listener` as it is recorded, with the host time its
+   * tracker time maps to (target procedures collect their windows this way). Returns the
+   * function that removes the listener.
+   */
+  tap(listener: (record: GazeRecord) => void): () => void {
+    this.taps.add(listener);
+    return () => this.taps.delete(listener);
+  }
+
   hello(hello: GazeHello, peer: string): void {
     if (this.ended) return;
     this.helloSeen = hello;
@@ -52,8 +72,27 @@ export class GazeIntake implements GazeSink {
 
   sample(sample: GazeSample, arrivalNs: HostNs): void {
     if (this.ended) return;
-    this.sink.sample(sample, arrivalNs);
-    this.monitor.add(sample, arrivalNs);
+    const onScreen = this.mapping ? calibrated(sample, this.calibration!) : sample;
+    this.sink.sample(onScreen, arrivalNs);
+    this.monitor.add(onScreen, arrivalNs);
+  }
+
+  /**
+   * Gazeloom's calibration of a source that sends raw coordinates: while set (and the
+   * source's hello says 'raw'), every sample is mapped to screen px before it is recorded,
+   * monitored or tapped. Null stops mapping. The caller records the change as a message.
+   */
+  setCalibration(params: RawCalibrationParams | null): void {
+    this.calibration = params;
+  }
+
+  get hasCalibration(): boolean {
+    return this.calibration !== null;
+  }
+
+  /** Whether samples are being mapped from raw coordinates to screen px now. */
+  get mapping(): boolean {
+    return this.calibration !== null && this.helloSeen?.units === 'raw';
   }
 
   garbage(reason: string, peer: string): void {
@@ -78,4 +117,14 @@ export class GazeIntake implements GazeSink {
     this.sink.finish();
     this.ended = true;
   }
+}
+
+function calibratedEye(eye: EyeSample | null, params: RawCalibrationParams): EyeSample | null {
+  if (eye === null || !(Number.isFinite(eye.x) && Number.isFinite(eye.y))) return eye;
+  const p = applyRawCalibration(params, eye.x, eye.y);
+  return { ...eye, x: p.x, y: p.y };
+}
+
+function calibrated(sample: GazeSample, params: RawCalibrationParams): GazeSample {
+  return { ...sample, left: calibratedEye(sample.left, params), right: calibratedEye(sample.right, params) };
 }

@@ -2,12 +2,15 @@ import { randomBytes } from 'node:crypto';
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import type { GazeSourceChoice, LiveStatus, StageCommand, StageEventChunk } from '../../contract';
+import type { StageBlank } from '../../contract/schemas/safety';
 import type { FrameRecordWire } from '../../contract/schemas/stage';
-import type { HostClock } from '../../core/clock/host-clock';
+import type { HostClock, HostNs } from '../../core/clock/host-clock';
 import type { DisplayGeometry } from '../../core/geometry/display-geometry';
 import { pixelsPerDegreeAtCentre } from '../../core/geometry/display-geometry';
 import { placeSensor } from '../../core/geometry/placement';
 import type { ControlMessage } from '../../core/gaze/control-message';
+import type { GazeUnits } from '../../core/gaze/gaze-sample';
+import type { RawCalibrationParams } from '../../core/quality/correction/raw-calibration';
 import type { FrameRecord, GazeRecord, MessageRecord } from '../../core/recording/records';
 import { parseTracksTsv } from '../../core/tracker-sim';
 import { createFeedListener } from '../gaze/feed/create-feed-listener';
@@ -20,6 +23,7 @@ import { PlaybackScheduler, type PlayRequest } from '../playback/playback-schedu
 import { TestPatternSource, type TestPatternOptions } from '../playback/test-pattern-source';
 import type { StimulusStore } from '../stimuli/stimulus-store';
 import { GazeIntake } from './gaze-intake';
+import { GAZE_CALIBRATION_MESSAGE, lastGazeCalibration } from './last-gaze-calibration';
 
 /** What the live session needs of a recorder (app/host/recording's SessionRecorder). */
 export interface SessionWriter {
@@ -39,6 +43,21 @@ export interface LiveSessionDeps {
   readonly reopenRecorder: (dir: string) => Promise<{ recorder: SessionWriter; sessionId: string; display: DisplayGeometry; source: GazeSourceChoice }>;
   readonly toStage: { command(command: StageCommand): void; events(chunk: StageEventChunk): void };
   readonly publish: (status: LiveStatus) => void;
+  /**
+   * How the in-host simulated tracker delivers: 'timer' (the default) in real time, or
+   * 'manual' in simulated time (tests, the simulated demo study), only when
+   * advanceSimulatedTracker is called.
+   */
+  readonly simulatedDrive?: 'timer' | 'manual';
+}
+
+/** What a target procedure needs to know of the recording it runs in. */
+export interface GazeContext {
+  readonly sessionId: string;
+  readonly display: DisplayGeometry;
+  /** From the source's hello; null until it has said hello. */
+  readonly rateHz: number | null;
+  readonly units: GazeUnits | null;
 }
 
 interface Running {
@@ -71,6 +90,8 @@ export class LiveSession {
   private targetCount = 0;
   /** Frames of the clip playing now (or last): for the live figures and the stage capacity check. */
   private clipFrames: { total: number; late: number; drawMs: number[] } = { total: 0, late: 0, drawMs: [] };
+  /** The stage blank, while it lasts (LiveStatus.blank). */
+  private blanked: StageBlank | null = null;
 
   constructor(private readonly deps: LiveSessionDeps) {
     this.scheduler = new PlaybackScheduler(deps.clock, deps.log, deps.toStage);
@@ -80,6 +101,10 @@ export class LiveSession {
       if (++ticks % 40 === 0) this.running?.intake.recordFit(); // the live clock fit every 10 s
     }, 250);
     this.timer.unref();
+  }
+
+  get clock(): HostClock {
+    return this.deps.clock;
   }
 
   get isRecording(): boolean {
@@ -97,11 +122,12 @@ export class LiveSession {
   /** Appends to a recovered session with the gaze source and display it was recorded with. */
   async resumeRecording(dir: string): Promise<{ sessionId: string; dir: string }> {
     if (this.running) throw new Error(`a recording is already running (${this.running.sessionId}); stop it first`);
+    const calibration = await lastGazeCalibration(dir);
     const { recorder, sessionId, display, source } = await this.deps.reopenRecorder(dir);
-    return this.begin(sessionId, dir, recorder, source, display, 'session_resumed');
+    return this.begin(sessionId, dir, recorder, source, display, 'session_resumed', calibration);
   }
 
-  private async begin(sessionId: string, dir: string, recorder: SessionWriter, choice: GazeSourceChoice, display: DisplayGeometry, how: string): Promise<{ sessionId: string; dir: string }> {
+  private async begin(sessionId: string, dir: string, recorder: SessionWriter, choice: GazeSourceChoice, display: DisplayGeometry, how: string, calibration: RawCalibrationParams | null = null): Promise<{ sessionId: string; dir: string }> {
     const source = this.makeSource(choice, display);
     const counts = { frames: 0, messages: 0 };
     const intake = new GazeIntake(
@@ -117,6 +143,11 @@ export class LiveSession {
     this.running = { sessionId, dir, source, recorder, intake, display, counts };
     this.lastDisplay = display;
     this.message(how, { sessionId, display });
+    if (calibration) {
+      // Before the source starts, so that no sample of the resumed recording goes unmapped.
+      intake.setCalibration(calibration);
+      this.message(GAZE_CALIBRATION_MESSAGE, { params: calibration, calibrationId: null, sourceUnits: null, resumed: true });
+    }
     source.control({ type: 'session_started', session: sessionId, hostTimeS: this.deps.clock.nowNs() / 1e9 });
     try {
       await source.start(intake);
@@ -156,6 +187,7 @@ export class LiveSession {
   }
 
   private async start(request: PlayRequest): Promise<string> {
+    if (this.blanked) throw new Error('the stage is blanked: unblank it before playing a clip');
     const playback = await this.scheduler.play(request);
     this.pausedAtUs = null;
     this.clipFrames = { total: 0, late: 0, drawMs: [] };
@@ -220,6 +252,39 @@ export class LiveSession {
     await this.scheduler.stop();
   }
 
+  get blank(): StageBlank | null {
+    return this.blanked;
+  }
+
+  /**
+   * Blanks the stage to mid-grey and pauses the clip, at once; recorded as stage_blanked
+   * (who, why, the clip and its time). A second blank while blanked changes nothing but
+   * sends the stage its blank again. The caller cancels a running target procedure.
+   */
+  blankStage(by: StageBlank['by'], reason: string): StageBlank {
+    this.deps.toStage.command({ type: 'setBlank', blanked: true });
+    if (this.blanked) return this.blanked;
+    const hostNs = this.deps.clock.nowNs();
+    const playback = this.scheduler.playback;
+    if (playback && (playback.state === 'playing' || playback.state === 'starting')) this.scheduler.pause();
+    this.blanked = { by, reason, hostNs };
+    this.message('stage_blanked', { by, reason, clip: playback?.clip ?? null, stimulusUs: playback?.stimulusUs ?? null }, hostNs);
+    this.lookAt({ kind: 'idle' });
+    this.deps.publish(this.status());
+    return this.blanked;
+  }
+
+  /** Ends the blank (recorded as stage_unblanked); a paused clip stays paused until resumed or stopped. */
+  unblankStage(): void {
+    const blank = this.blanked;
+    if (!blank) return;
+    const hostNs = this.deps.clock.nowNs();
+    this.blanked = null;
+    this.deps.toStage.command({ type: 'setBlank', blanked: false });
+    this.message('stage_unblanked', { blankedBy: blank.by, blankedForS: (hostNs - blank.hostNs) / 1e9 }, hostNs);
+    this.deps.publish(this.status());
+  }
+
   /** Shows a target: drawn by the stage, recorded, sent to a tracker bridge, and looked at by the simulated tracker. */
   showTarget(x: number, y: number, purpose: 'calibration' | 'validation' | 'drift_check'): string {
     const id = `target-${++this.targetCount}`;
@@ -240,6 +305,48 @@ export class LiveSession {
     this.message('target_removed', { id }, hostNs);
     this.control({ type: 'target_removed', id, hostTimeS: hostNs / 1e9 });
     this.lookAt({ kind: 'idle' });
+  }
+
+  /** The running recording's session, display and gaze units and rate; null when none is running. */
+  gazeContext(): GazeContext | null {
+    const r = this.running;
+    if (!r) return null;
+    const hello = r.intake.helloSeen;
+    // Raw samples mapped by Gazeloom's calibration arrive in screen px.
+    return { sessionId: r.sessionId, display: r.display, rateHz: hello?.rateHz ?? null, units: r.intake.mapping ? 'screen_px' : (hello?.units ?? null) };
+  }
+
+  /**
+   * Sets (or with null clears) Gazeloom's calibration of a source that sends raw
+   * coordinates, recorded as a gaze_calibration_set message ({params, calibrationId, sourceUnits}). Throws when no recording is
+   * running or the source's hello did not declare raw units (its samples are already on the screen).
+   */
+  setGazeCalibration(params: RawCalibrationParams | null, calibrationId: string | null): { sourceUnits: GazeUnits | null; mapping: boolean } {
+    const r = this.running;
+    if (!r) throw new Error('no recording is running: start one before calibrating');
+    const sourceUnits = r.intake.helloSeen?.units ?? null;
+    if (params && sourceUnits !== 'raw') throw new Error(`the gaze source sends ${sourceUnits ?? 'nothing yet (no hello)'}, not raw coordinates: it needs no calibration by Gazeloom`);
+    // Clearing when nothing was set changes nothing, and is not recorded.
+    if (params || r.intake.hasCalibration) this.message(GAZE_CALIBRATION_MESSAGE, { params, calibrationId, sourceUnits });
+    r.intake.setCalibration(params);
+    return { sourceUnits, mapping: r.intake.mapping };
+  }
+
+  /** Every gaze sample of the running recording from now on, with its mapped host time (GazeIntake.tap). */
+  tapGaze(listener: (record: GazeRecord) => void): () => void {
+    if (!this.running) throw new Error('no recording is running');
+    return this.running.intake.tap(listener);
+  }
+
+  /** Records a message in the running recording (nothing when none is running). */
+  recordMessage(kind: string, data: Record<string, unknown>): void {
+    this.message(kind, data);
+  }
+
+  /** Simulated time: the in-host simulated tracker delivers every sample due by untilNs (see simulatedDrive). */
+  advanceSimulatedTracker(untilNs: HostNs): number {
+    const source = this.running?.source;
+    return source instanceof SimulatedTrackerSource ? source.advanceTo(untilNs) : 0;
   }
 
   setPhotodiode(enabled: boolean): void {
@@ -273,6 +380,7 @@ export class LiveSession {
       playback: playback ? { playbackId: playback.playbackId, clip: playback.clip, state: playback.state, stimulusUs: playback.stimulusUs, sensor: playback.sensor, placement: playback.placement } : null,
       clipFrames: this.clipFrameFigures(),
       display: r?.display ?? this.lastDisplay,
+      blank: this.blanked,
     };
   }
 
@@ -297,7 +405,7 @@ export class LiveSession {
       return this.mouse;
     }
     const { kind: _kind, ...tracker } = choice;
-    return new SimulatedTrackerSource({ clock, tracker: { ...tracker, display } });
+    return new SimulatedTrackerSource({ clock, tracker: { ...tracker, display }, drive: this.deps.simulatedDrive ?? 'timer' });
   }
 
   private message(kind: string, data: Record<string, unknown>, hostNs: number = this.deps.clock.nowNs()): void {

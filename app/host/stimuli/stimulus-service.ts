@@ -37,6 +37,8 @@ export class StimulusService {
     private readonly store: StimulusStore,
     private readonly jobs: JobRunner,
     private readonly changed: (ids: string[]) => void,
+    /** Called with each new stimulus's id once it is in the library (the flash screening). */
+    private readonly added: (id: string) => void = () => undefined,
   ) {}
 
   startImport(request: ImportRequest): string {
@@ -53,7 +55,8 @@ export class StimulusService {
             source: { kind: 'import', file: request.path },
             sensor: input.sensor,
             resolution: input.resolution,
-            mayFlash: false,
+            // Counts as flashing until its screening has run.
+            mayFlash: true,
             demo: false,
             warnings: input.warnings,
             ...(tracksTsv ? { tracksTsv: () => tracksTsv } : {}),
@@ -61,6 +64,7 @@ export class StimulusService {
           input.batches(),
         );
         this.changed([meta.id]);
+        this.added(meta.id);
         return { message: `imported ${meta.eventCount.toLocaleString('en-GB')} events${input.warnings.length ? ` (${input.warnings.join('; ')})` : ''}`, resultId: meta.id };
       } finally {
         await input.close();
@@ -87,13 +91,14 @@ export class StimulusService {
             source: { kind: 'operation', parentId: parent.id, operation: request.apply.operation, parameters: derivation.parameters },
             sensor: derivation.sensor,
             resolution: parent.resolution,
-            mayFlash: parent.mayFlash,
+            mayFlash: true,
             demo: false,
             warnings: [],
           },
           transformed(),
         );
         this.changed([meta.id]);
+        this.added(meta.id);
         return { message: `${derivation.describe}: ${meta.eventCount.toLocaleString('en-GB')} events`, resultId: meta.id };
       } finally {
         await input.close();

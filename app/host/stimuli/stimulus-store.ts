@@ -26,13 +26,15 @@ export interface StimulusFiles {
   readonly meta: string;
   readonly stats: string;
   readonly tracks: string;
+  /** The flash screening's result (flash-screening.ts). */
+  readonly flash: string;
 }
 
 /**
  * The stimulus library on disk: one folder per stimulus under <data>/stimuli, holding
- * events.glev, meta.json, stats.json and (for simulated clips) tracks.tsv. New stimuli are
- * built in a staging folder and renamed into place when complete, so a failed import
- * leaves the library exactly as it was. Removal moves a folder to .trash so it can be undone.
+ * events.glev, meta.json, stats.json, flash.json (once screened) and (for simulated clips)
+ * tracks.tsv. New stimuli are built in a staging folder and renamed into place when
+ * complete, so a failed import leaves the library exactly as it was. Removal moves a folder to .trash so it can be undone.
  */
 export class StimulusStore {
   readonly root: string;
@@ -47,7 +49,7 @@ export class StimulusStore {
   files(id: string): StimulusFiles {
     if (!isStimulusId(id)) throw new RangeError(`not a stimulus id: "${id}"`);
     const dir = join(this.root, id);
-    return { dir, events: join(dir, 'events.glev'), meta: join(dir, 'meta.json'), stats: join(dir, 'stats.json'), tracks: join(dir, 'tracks.tsv') };
+    return { dir, events: join(dir, 'events.glev'), meta: join(dir, 'meta.json'), stats: join(dir, 'stats.json'), tracks: join(dir, 'tracks.tsv'), flash: join(dir, 'flash.json') };
   }
 
   async list(): Promise<StimulusMeta[]> {

@@ -4,6 +4,7 @@ import type { LookName } from '../../../app/core/render';
 import { FailureNote } from '../FailureNote';
 import { useHost } from '../host-context';
 import { useStimuli } from '../stimuli/use-stimuli';
+import { PLAYBACK_SPEEDS } from '../../../app/core/study/protocol-defaults';
 
 /** Choose a clip and how it is shown, then play, pause, resume and stop it on the stage. */
 export function PlaybackControls({ status }: { status: LiveStatus | null }) {
@@ -15,6 +16,8 @@ export function PlaybackControls({ status }: { status: LiveStatus | null }) {
   const [placement, setPlacement] = useState<'fit' | '1:1' | 'integer'>('fit');
   const [photodiode, setPhotodiode] = useState(false);
   const [failure, setFailure] = useState<Failure | null>(null);
+  /** A clip that may flash plays only after its warning is answered. */
+  const [confirmFlash, setConfirmFlash] = useState(false);
   const playback = status?.playback ?? null;
 
   useEffect(() => {
@@ -26,6 +29,7 @@ export function PlaybackControls({ status }: { status: LiveStatus | null }) {
     setFailure(result.ok ? null : result);
   };
   const chosen = stimuli?.find((s) => s.id === clip);
+  const play = () => act(() => api.playClip({ stimulusId: clip, speed: Number(speed), look, placement, photodiode }));
   return (
     <section className="panel" aria-labelledby="playback-heading">
       <h2 id="playback-heading">Clip on the stage</h2>
@@ -44,7 +48,7 @@ export function PlaybackControls({ status }: { status: LiveStatus | null }) {
         <label>
           Speed{' '}
           <select value={speed} onChange={(e) => setSpeed(e.target.value)}>
-            {[0.1, 0.25, 0.5, 0.75, 1].map((s) => (
+            {PLAYBACK_SPEEDS.map((s) => (
               <option key={s} value={s}>
                 {s}×
               </option>
@@ -73,7 +77,7 @@ export function PlaybackControls({ status }: { status: LiveStatus | null }) {
       </div>
       {chosen?.mayFlash && <p className="warning">This clip may flash: show it only to participants cleared for photosensitivity.</p>}
       <div className="button-row">
-        <button type="button" disabled={!clip} onClick={() => void act(() => api.playClip({ stimulusId: clip, speed: Number(speed), look, placement, photodiode }))}>
+        <button type="button" disabled={!clip || confirmFlash} onClick={() => (chosen?.mayFlash ? setConfirmFlash(true) : void play())}>
           Play on stage
         </button>
         <button type="button" className="secondary" disabled={!playback} onClick={() => void act(() => (playback?.state === 'paused' ? api.resumePlayback({}) : api.pausePlayback({})))}>
@@ -83,6 +87,17 @@ export function PlaybackControls({ status }: { status: LiveStatus | null }) {
           Stop clip
         </button>
       </div>
+      {confirmFlash && (
+        <div role="alertdialog" aria-label="This clip may flash" className="confirm warning" onKeyDown={(e) => e.key === 'Escape' && setConfirmFlash(false)}>
+          {chosen?.name ?? clip} may flash (it failed the flash screening). Show it only to a participant cleared in photosensitivity screening, and be ready to blank the stage.{' '}
+          <button type="button" className="danger" onClick={() => (setConfirmFlash(false), void play())}>
+            Play anyway
+          </button>{' '}
+          <button type="button" className="secondary" autoFocus onClick={() => setConfirmFlash(false)}>
+            Do not play (Esc)
+          </button>
+        </div>
+      )}
       <p className="muted" data-testid="playback-state">
         {playback ? `${playback.clip}: ${playback.state}${playback.stimulusUs !== null ? ` at ${(playback.stimulusUs / 1e6).toFixed(2)} s` : ''}` : 'No clip playing.'}
       </p>

@@ -1,5 +1,6 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useMemo, useRef, useState } from 'react';
 import { decimateToColumns } from './decimate';
+import { buildDrawPath, seriesExtent, strokeDrawPath } from './draw-path';
 
 export interface Series {
   readonly label: string;
@@ -54,22 +55,11 @@ export function LinePlot({ title, series, xLabel, yLabel, thresholds = [], heigh
     return () => observer.disconnect();
   }, []);
 
-  let x0 = Infinity;
-  let x1 = -Infinity;
-  let y0 = Infinity;
-  let y1 = -Infinity;
-  for (const s of series) {
-    if (s.xs.length === 0) continue;
-    x0 = Math.min(x0, s.xs[0]!);
-    x1 = Math.max(x1, s.xs[s.xs.length - 1]!);
-    for (let i = 0; i < s.ys.length; i++) {
-      const y = s.ys[i]!;
-      if (Number.isFinite(y)) {
-        if (y < y0) y0 = y;
-        if (y > y1) y1 = y;
-      }
-    }
-  }
+  const extent = useMemo(() => seriesExtent(series), [series]);
+  const x0 = extent?.x0 ?? Infinity;
+  const x1 = extent?.x1 ?? -Infinity;
+  let y0 = extent?.y0 ?? Infinity;
+  let y1 = extent?.y1 ?? -Infinity;
   for (const t of thresholds) {
     y0 = Math.min(y0, t.y);
     y1 = Math.max(y1, t.y);
@@ -82,6 +72,8 @@ export function LinePlot({ title, series, xLabel, yLabel, thresholds = [], heigh
   }
   const plotW = width - margin.left - margin.right;
   const plotH = height - margin.top - margin.bottom;
+  // Decimated once per data and width, not on every hover: a whole session is millions of points.
+  const columns = useMemo(() => (empty ? [] : series.map((s) => decimateToColumns(s.xs, s.ys, x0, x1, Math.max(1, Math.floor(plotW))))), [series, empty, x0, x1, plotW]);
   const toPx = (x: number) => margin.left + ((x - x0) / (x1 - x0 || 1)) * plotW;
   const toPy = (y: number) => margin.top + plotH - ((y - y0) / (y1 - y0)) * plotH;
 
@@ -114,23 +106,12 @@ export function LinePlot({ title, series, xLabel, yLabel, thresholds = [], heigh
       ctx.fillText(t.toLocaleString('en-GB'), px - 8, height - margin.bottom + 14);
     }
     ctx.fillText(xLabel, margin.left + plotW / 2 - 20, height - 4);
-    for (const s of series) {
-      const cols = decimateToColumns(s.xs, s.ys, x0, x1, Math.max(1, Math.floor(plotW)));
+    series.forEach((s, i) => {
       ctx.strokeStyle = s.colour;
       ctx.lineWidth = 1.25;
-      ctx.beginPath();
-      let pen = false;
-      for (let c = 0; c < cols.count.length; c++) {
-        if (cols.gap[c] === 1 && cols.count[c] === 0) pen = false;
-        if (cols.count[c] === 0) continue; // no point here: the line runs on to the next one
-        const px = margin.left + c + 0.5;
-        if (!pen) ctx.moveTo(px, toPy(cols.min[c]!));
-        ctx.lineTo(px, toPy(cols.min[c]!));
-        ctx.lineTo(px, toPy(cols.max[c]!));
-        pen = true;
-      }
+      strokeDrawPath(ctx, buildDrawPath(columns[i]!, margin.left, toPy));
       ctx.stroke();
-    }
+    });
     for (const t of thresholds) {
       ctx.strokeStyle = t.colour;
       ctx.setLineDash([5, 4]);

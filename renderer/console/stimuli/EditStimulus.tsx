@@ -3,7 +3,7 @@ import type { Failure, StimulusMeta } from '../../../app/contract';
 import { FailureNote } from '../FailureNote';
 import { useHost } from '../host-context';
 
-/** Name, notes and the hand-set flash mark. */
+/** Name and notes; the flash mark comes from the flash screening (FlashResult). */
 export function EditStimulus({ stimulus }: { stimulus: StimulusMeta }) {
   const { api } = useHost();
   const [name, setName] = useState(stimulus.name);
@@ -11,7 +11,7 @@ export function EditStimulus({ stimulus }: { stimulus: StimulusMeta }) {
   const [failure, setFailure] = useState<Failure | null>(null);
   const [saved, setSaved] = useState(false);
 
-  const save = async (patch: { name?: string; notes?: string; mayFlash?: boolean }) => {
+  const save = async (patch: { name?: string; notes?: string }) => {
     const result = await api.updateStimulus({ id: stimulus.id, ...patch });
     setFailure(result.ok ? null : result);
     setSaved(result.ok);
@@ -34,10 +34,6 @@ export function EditStimulus({ stimulus }: { stimulus: StimulusMeta }) {
       <label className="field">
         Notes
         <textarea value={notes} onChange={(e) => (setNotes(e.target.value), setSaved(false))} rows={3} />
-      </label>
-      <label className="check">
-        <input type="checkbox" checked={stimulus.mayFlash} onChange={(e) => void save({ mayFlash: e.target.checked })} /> May flash (bright/dark
-        alternations): only participants cleared for photosensitivity may see it
       </label>
       <button type="submit">Save description</button>
       {saved && <span className="muted"> saved</span>}

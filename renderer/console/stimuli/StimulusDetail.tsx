@@ -4,6 +4,7 @@ import { FailureNote } from '../FailureNote';
 import { useHost } from '../host-context';
 import { LinePlot } from '../plots/LinePlot';
 import { EditStimulus } from './EditStimulus';
+import { FlashResult } from './FlashResult';
 import { RemoveStimulus } from './RemoveStimulus';
 import { StimulusFacts } from './StimulusFacts';
 import { StimulusOperations } from './StimulusOperations';
@@ -31,7 +32,7 @@ export function StimulusDetail({ stimulus, onDerived, onRemoved }: Props) {
     <section className="stimulus-detail panel" aria-labelledby="detail-heading">
       <div className="panel-head">
         <h2 id="detail-heading">{stimulus.name}</h2>
-        {stimulus.mayFlash && <span className="badge badge-warn">may flash: show only to participants cleared for photosensitivity</span>}
+        {stimulus.mayFlash && <span className="badge badge-warn">{stimulus.flash ? 'fails the flash screening' : 'not yet screened for flashing'}: show only to participants cleared for photosensitivity</span>}
       </div>
       {failure && <FailureNote failure={failure} />}
       <StimulusFacts stimulus={stimulus} stats={stats} />
@@ -46,6 +47,7 @@ export function StimulusDetail({ stimulus, onDerived, onRemoved }: Props) {
         />
       )}
       <StimulusPreview stimulus={stimulus} timeUs={timeUs} onTime={setTimeUs} />
+      <FlashResult stimulus={stimulus} cursorS={(timeUs - stimulus.tStartUs) / 1e6} onPick={(seconds) => setTimeUs(stimulus.tStartUs + Math.max(0, seconds) * 1e6)} />
       <div className="detail-columns">
         <EditStimulus stimulus={stimulus} />
         <StimulusOperations stimulus={stimulus} stats={stats} onDerived={onDerived} />

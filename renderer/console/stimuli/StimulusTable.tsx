@@ -47,7 +47,7 @@ export function StimulusTable({ stimuli, selectedId, onSelect }: Props) {
             <td>
               {s.sensor.width}×{s.sensor.height}
             </td>
-            <td>{s.mayFlash ? <span className="badge badge-warn">may flash</span> : '–'}</td>
+            <td>{!s.flash ? <span className="badge">not screened</span> : s.flash.pass ? 'passes' : <span className="badge badge-warn">fails</span>}</td>
           </tr>
         ))}
       </tbody>
