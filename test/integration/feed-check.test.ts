@@ -69,7 +69,8 @@ async function check(args: { seconds: number; sendSeconds: number; withSeq: bool
 describe('gazeloom feed check', () => {
   it('reports exactly the documented fields, the known offset within 1 ms and the skew within a few ppm', async () => {
     // 10 s: on a loopback shared with a busy test runner, the least delay of a fit window
-    // wanders by tens of µs, which over 5 s can tilt the fit by 10 ppm; over 10 s by about 1.
+    // wanders by tens of µs, which over 5 s can tilt the fit by 10 ppm; over 10 s by about 1,
+    // and up to about 5 while the whole suite runs beside it on 2 cores (seen: 4.6).
     const doc = await check({ seconds: 11, sendSeconds: 10, withSeq: true, garbage: true, restartAtS: 0 });
     expect(Object.keys(doc).sort()).toEqual(['clock_offset_s', 'clock_skew_ppm', 'garbage_lines', 'jitter_ms_p99', 'lost', 'measured_rate_hz', 'nominal_rate_hz', 'out_of_order', 'samples', 'warnings'].sort());
     expect(doc).toMatchObject({ samples: 10_000, lost: 0, out_of_order: 0, garbage_lines: 10, nominal_rate_hz: RATE_HZ });
@@ -77,7 +78,7 @@ describe('gazeloom feed check', () => {
     expect(doc.measured_rate_hz as number).toBeCloseTo(RATE_HZ, 6);
     expect(Math.abs((doc.clock_offset_s as number) - OFFSET_S)).toBeLessThan(1e-3);
     expect(doc.clock_offset_s as number).toBeLessThan(OFFSET_S); // the minimum delay cannot be told from the offset
-    expect(Math.abs((doc.clock_skew_ppm as number) - SKEW_PPM)).toBeLessThan(3);
+    expect(Math.abs((doc.clock_skew_ppm as number) - SKEW_PPM)).toBeLessThan(8);
     expect(doc.jitter_ms_p99 as number).toBeGreaterThanOrEqual(0);
     expect(doc.warnings).toEqual([expect.stringMatching(/^10 garbage lines; 10 x sample: expected 8 tab-separated fields for this hello, got 1$/)]);
   });

@@ -18,7 +18,7 @@ export interface SimulationOptions {
   readonly durationS: number;
   /** Seeds the pixel mismatch, the hot pixels and the noise; the scene itself is the same for every seed. */
   readonly seed: number;
-  /** The groups of moving things to show; all by default. */
+  /** The groups of moving things to show; all but the flickering light by default. */
   readonly objects?: readonly WarehouseObjectGroup[];
   /** Mean ON and OFF threshold, natural-log units (0.2). */
   readonly contrastThreshold?: number;
@@ -77,7 +77,7 @@ export function simulateEvents(options: SimulationOptions): Generator<Simulation
   return run(scene, model, frameUs, sliceUs, durationUs);
 }
 
-/** The scene's flashing parts (the beacon), to show beside the clip in the library. */
+/** The scene's flashing parts (the beacon, the flickering light), to show beside the clip in the library. */
 export function flashingParts(options: Pick<SimulationOptions, 'scene' | 'sensor' | 'objects'>): FlashingPart[] {
   if (options.scene !== 'warehouse') throw new RangeError(`scene must be 'warehouse', got ${String(options.scene)}`);
   return warehouseFlashingParts(options.sensor ?? DEFAULT_SENSOR, options.objects ? { objects: options.objects } : {});

@@ -1,5 +1,5 @@
 /** The kinds of moving object in the simulated warehouse scene. */
-export type ObjectKind = 'forklift' | 'parcel' | 'beacon' | 'person';
+export type ObjectKind = 'forklift' | 'parcel' | 'beacon' | 'person' | 'flickering-light';
 
 /**
  * Where one object is at one instant, in sensor pixels (pixel (x, y) centred on integer

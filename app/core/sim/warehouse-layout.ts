@@ -20,6 +20,8 @@ export const AISLE = {
   conveyorLegBottomV: 0.6,
   walkwayLineV: [0.605, 0.665],
   beaconU: 0.7,
+  /** A failing tube between the first two lamps. */
+  flickeringLightU: 0.35,
 } as const;
 
 /** Ground line (v) and size scale of each depth where things move; scale 1 is the nearest lane. */

@@ -1,5 +1,6 @@
 import type { SensorSize } from '../events/event-batch';
 import { beaconShapes } from './beacon';
+import { flickeringLightShapes } from './flickering-light';
 import { forkliftShapes } from './forklift';
 import { firstParcelIndex, parcelsOnBelt, type Conveyor } from './parcels';
 import { personShapes } from './person';
@@ -9,8 +10,10 @@ import type { ObjectKind } from './track-rows';
 import { AISLE, DEPTHS, REFERENCE_HEIGHT_PX } from './warehouse-layout';
 
 /** The groups of moving things a clip can show; 'conveyor' is its stream of parcels. */
-export type WarehouseObjectGroup = 'forklift' | 'conveyor' | 'beacon' | 'person';
-export const WAREHOUSE_OBJECT_GROUPS: readonly WarehouseObjectGroup[] = ['forklift', 'conveyor', 'beacon', 'person'];
+export type WarehouseObjectGroup = 'forklift' | 'conveyor' | 'beacon' | 'person' | 'flickering-light';
+export const WAREHOUSE_OBJECT_GROUPS: readonly WarehouseObjectGroup[] = ['forklift', 'conveyor', 'beacon', 'person', 'flickering-light'];
+/** What a clip shows when nobody chooses: everything but the flickering light, which is a flash hazard shown only when asked for. */
+export const DEFAULT_OBJECT_GROUPS: readonly WarehouseObjectGroup[] = ['forklift', 'conveyor', 'beacon', 'person'];
 
 /** One moving thing at one instant, with its shapes in sensor pixels. */
 export interface SceneObject {
@@ -20,11 +23,14 @@ export interface SceneObject {
 }
 
 /** Track ids, fixed whichever groups are shown. Parcels count up from PARCEL_ID_BASE in the order they enter. */
-export const OBJECT_IDS = { forklifts: [1, 2, 3], person: 4, beacon: 5 } as const;
+export const OBJECT_IDS = { forklifts: [1, 2, 3], person: 4, beacon: 5, flickeringLight: 6 } as const;
 export const PARCEL_ID_BASE = 100;
 
 /** The beacon turns 1.5 times a second and so flashes 1.5 times a second, under the three flashes a second of WCAG 2.2, success criterion 2.3.1. */
 export const BEACON_ROTATION_HZ = 1.5;
+
+/** The failing tube goes on and off 8 times a second: 8 flashes a second over a large area, well above the three of WCAG 2.2, success criterion 2.3.1. */
+export const FLICKER_HZ = 8;
 
 /**
  * The forklifts, far lane to near: each slower the farther it is, shuttling across the
@@ -55,7 +61,7 @@ function conveyorFor(sensor: SensorSize): Conveyor {
   };
 }
 
-/** Everything that moves at tS, drawn in this order (far to near). */
+/** Everything that moves at tS, drawn in this order (far to near, then the flickering light's glow over them all). */
 export function sceneObjectsAt(sensor: SensorSize, groups: ReadonlySet<WarehouseObjectGroup>, tS: number): SceneObject[] {
   const { width, height } = sensor;
   const unit = height / REFERENCE_HEIGHT_PX;
@@ -79,6 +85,10 @@ export function sceneObjectsAt(sensor: SensorSize, groups: ReadonlySet<Warehouse
       const x = shuttlePosition(inPx(f.run), tS);
       objects.push({ objectId: OBJECT_IDS.forklifts[k]!, kind: 'forklift', shapes: forkliftShapes(x, f.depth.groundV * height, f.depth.scale * unit, f.facing, f.loaded) });
     });
+  }
+  if (groups.has('flickering-light')) {
+    const shapes = flickeringLightShapes(AISLE.flickeringLightU * width, AISLE.lampV * height, unit, tS, FLICKER_HZ);
+    objects.push({ objectId: OBJECT_IDS.flickeringLight, kind: 'flickering-light', shapes });
   }
   return objects;
 }

@@ -1,13 +1,13 @@
 import type { SensorSize } from '../events/event-batch';
 import { checkSensor } from './check-sensor';
 import { drawShape } from './draw-shape';
-import { shapeBounds, unionBounds, type Bounds, type Raster } from './soft-shapes';
+import { shapeBounds, unionBounds, type Bounds, type Raster, type Shape } from './soft-shapes';
 import type { TrackRow } from './track-rows';
 import { renderBackground, type WarehouseBackground } from './warehouse-background';
-import { BEACON_ROTATION_HZ, sceneObjectsAt, WAREHOUSE_OBJECT_GROUPS, type SceneObject, type WarehouseObjectGroup } from './warehouse-objects';
+import { BEACON_ROTATION_HZ, DEFAULT_OBJECT_GROUPS, FLICKER_HZ, sceneObjectsAt, WAREHOUSE_OBJECT_GROUPS, type SceneObject, type WarehouseObjectGroup } from './warehouse-objects';
 
 export interface WarehouseSceneOptions {
-  /** The groups of moving things to show; all by default. */
+  /** The groups of moving things to show; all but the flickering light by default. */
   readonly objects?: readonly WarehouseObjectGroup[];
 }
 
@@ -22,7 +22,7 @@ export interface PixelRect {
 /** A part of the scene that flashes, for a photosensitivity note beside the clip. */
 export interface FlashingPart {
   readonly objectId: number;
-  readonly kind: 'beacon';
+  readonly kind: 'beacon' | 'flickering-light';
   readonly description: string;
   readonly flashesPerSecond: number;
   /** Where it flashes, sensor pixels (as in the track rows). */
@@ -34,7 +34,8 @@ export interface FlashingPart {
 
 /**
  * The warehouse aisle as intensity images: a static rack, floor and lighting rendered
- * once, with forklifts, parcels, a walker and a beacon composited over it at any time.
+ * once, with forklifts, parcels, a walker, a beacon and (when asked for) a flickering light
+ * composited over it at any time.
  * Only pixels that some object covers at either of two instants can differ between them
  * (changedRegions), which is what makes a 1 kHz simulation at 640x480 affordable.
  */
@@ -72,15 +73,22 @@ export class WarehouseScene {
     for (let k = 0; k < objects.length; k++) if (overlaps(bounds[k]!, rect)) for (const s of objects[k]!.shapes) drawShape(s, raster);
   }
 
-  /** Regions outside which the images at tPrevS and tS are identical: each object's cover at both instants. */
+  /**
+   * Regions outside which the images at tPrevS and tS are identical: the cover at both
+   * instants of each object that changed (one drawn the same at both, like the flickering
+   * light between switchings, changes no pixel that no other object covers).
+   */
   changedRegions(tPrevS: number, tS: number): PixelRect[] {
-    const idBounds = ({ objects, bounds }: { objects: SceneObject[]; bounds: Bounds[] }) => new Map(objects.map((o, k) => [o.objectId, bounds[k]!]));
-    const before = idBounds(this.objectsOf(tPrevS));
-    const now = idBounds(this.objectsOf(tS));
+    const byId = ({ objects, bounds }: { objects: SceneObject[]; bounds: Bounds[] }) => new Map(objects.map((o, k) => [o.objectId, { shapes: o.shapes, bounds: bounds[k]! }]));
+    const before = byId(this.objectsOf(tPrevS));
+    const now = byId(this.objectsOf(tS));
     const rects: PixelRect[] = [];
     for (const id of new Set([...before.keys(), ...now.keys()])) {
-      const a = before.get(id);
-      const b = now.get(id);
+      const was = before.get(id);
+      const is = now.get(id);
+      if (was && is && sameShapes(was.shapes, is.shapes)) continue;
+      const a = was?.bounds;
+      const b = is?.bounds;
       const rect = this.pixelsWithin(a && b ? unionBounds(a, b) : (a ?? b)!);
       if (rect) rects.push(rect);
     }
@@ -112,15 +120,22 @@ export class WarehouseScene {
   }
 }
 
-/** The scene's flashing parts (the beacon, when shown); it stands still, so its place is that of t = 0. */
+const FLASHING = {
+  beacon: { description: 'rotating warning beacon', flashesPerSecond: BEACON_ROTATION_HZ },
+  'flickering-light': { description: 'failing fluorescent tube lighting the aisle', flashesPerSecond: FLICKER_HZ },
+} as const;
+
+/** The scene's flashing parts (the beacon and the flickering light, when shown); they stand still, so their places are those of t = 0. */
 export function warehouseFlashingParts(sensor: SensorSize, options: WarehouseSceneOptions = {}): FlashingPart[] {
   checkSensor(sensor);
-  return trackRows(sensor, sceneObjectsAt(sensor, checkGroups(options.objects), 0), 0)
-    .filter((r) => r.kind === 'beacon')
-    .map(({ objectId, x0, y0, x1, y1 }) => ({ objectId, kind: 'beacon', description: 'rotating warning beacon', flashesPerSecond: BEACON_ROTATION_HZ, x0, y0, x1, y1 }));
+  const parts: FlashingPart[] = [];
+  for (const { objectId, kind, x0, y0, x1, y1 } of trackRows(sensor, sceneObjectsAt(sensor, checkGroups(options.objects), 0), 0)) {
+    if (kind === 'beacon' || kind === 'flickering-light') parts.push({ objectId, kind, ...FLASHING[kind], x0, y0, x1, y1 });
+  }
+  return parts;
 }
 
-function checkGroups(groups: readonly WarehouseObjectGroup[] = WAREHOUSE_OBJECT_GROUPS): ReadonlySet<WarehouseObjectGroup> {
+function checkGroups(groups: readonly WarehouseObjectGroup[] = DEFAULT_OBJECT_GROUPS): ReadonlySet<WarehouseObjectGroup> {
   for (const g of groups) {
     if (!WAREHOUSE_OBJECT_GROUPS.includes(g)) throw new RangeError(`objects must list some of ${WAREHOUSE_OBJECT_GROUPS.join(', ')}, got ${String(g)}`);
   }
@@ -140,6 +155,16 @@ function trackRows(sensor: SensorSize, objects: readonly SceneObject[], tS: numb
     rows.push({ tS, objectId: o.objectId, kind: o.kind, cx: (x0 + x1) / 2, cy: (y0 + y1) / 2, x0, y0, x1, y1 });
   }
   return rows;
+}
+
+function sameShapes(a: readonly Shape[], b: readonly Shape[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let k = 0; k < a.length; k++) {
+    const x = a[k]! as Record<string, number | string>;
+    const y = b[k]! as Record<string, number | string>;
+    for (const key in x) if (x[key] !== y[key]) return false;
+  }
+  return true;
 }
 
 /** Whether any pixel of the rect lies within the bounds. */

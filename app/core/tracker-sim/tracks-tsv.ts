@@ -3,7 +3,7 @@ import { TRACKS_TSV_HEADER, type ObjectKind, type TrackRow } from '../sim/track-
 import { TrackTable } from './track-table';
 
 const COLUMNS = TRACKS_TSV_HEADER.split('\t');
-const KINDS: ReadonlySet<string> = new Set<ObjectKind>(['forklift', 'parcel', 'beacon', 'person']);
+const KINDS: ReadonlySet<string> = new Set<ObjectKind>(['forklift', 'parcel', 'beacon', 'person', 'flickering-light']);
 
 /**
  * Reads a clip's TRACKS.tsv (README, "TRACKS.tsv: ground truth of simulated clips"): a

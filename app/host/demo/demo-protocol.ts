@@ -25,7 +25,11 @@ export function demoStimuli(addedAt: string, recipes: readonly DemoClipRecipe[] 
   return recipes.map((r) => ({ id: r.id, studyId: DEMO_STUDY_ID, name: r.name, durationS: r.durationS, sensor: { ...DEMO_SENSOR }, mayFlash: r.mayFlash, addedAt }));
 }
 
-/** Calibrate, validate, the clips in a counterbalanced block with a drift check every 2 clips, a rest, a closing message. */
+/**
+ * Calibrate, validate, the clips that pass the flash screening in a counterbalanced block
+ * with a drift check every 2 clips, a rest, a closing message. The flickering-light clip
+ * stays out: it is in the study to show a failing screening, not to be watched.
+ */
 export function demoProtocol(createdAt: string, recipes: readonly DemoClipRecipe[] = demoClipRecipes): ProtocolRecord {
   return {
     id: DEMO_PROTOCOL_ID,
@@ -36,7 +40,7 @@ export function demoProtocol(createdAt: string, recipes: readonly DemoClipRecipe
       { kind: 'message', text: 'Please keep your head still and look at the screen. The session takes about two minutes.' },
       { kind: 'calibrate' },
       { kind: 'validate' },
-      { kind: 'block', name: 'warehouse clips', stimulusIds: recipes.map((r) => r.id) },
+      { kind: 'block', name: 'warehouse clips', stimulusIds: recipes.filter((r) => !r.mayFlash).map((r) => r.id) },
       { kind: 'drift_check' },
       { kind: 'rest', seconds: 10 },
       { kind: 'message', text: 'Thank you: the session is over.' },

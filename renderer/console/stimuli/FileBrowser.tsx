@@ -1,4 +1,4 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import type { DirectoryListing, Failure } from '../../../app/contract';
 import { FailureNote } from '../FailureNote';
 import { formatBytes } from '../format';
@@ -16,12 +16,19 @@ export function FileBrowser({ onChoose, chosen }: Props) {
   const [failure, setFailure] = useState<Failure | null>(null);
   const [typed, setTyped] = useState('');
 
+  // Only the newest listing is shown, and a path the operator typed while it loaded is kept:
+  // a slow first listing must not replace the folder they have already asked for.
+  const latest = useRef(0);
+  const edits = useRef(0);
   const open = async (path: string | null) => {
+    const request = ++latest.current;
+    const editsBefore = edits.current;
     const result = await api.listDirectory({ path });
+    if (request !== latest.current) return;
     if (!result.ok) return setFailure(result);
     setFailure(null);
     setListing(result.value);
-    setTyped(result.value.path);
+    if (edits.current === editsBefore) setTyped(result.value.path);
   };
   useEffect(() => {
     void open(null);
@@ -41,7 +48,10 @@ export function FileBrowser({ onChoose, chosen }: Props) {
       >
         <label>
           Folder on the host
-          <input value={typed} onChange={(e) => setTyped(e.target.value)} aria-label="Folder on the host" spellCheck={false} />
+          <input value={typed} onChange={(e) => {
+              edits.current++;
+              setTyped(e.target.value);
+            }} aria-label="Folder on the host" spellCheck={false} />
         </label>
         <button type="submit">Go</button>
         {listing?.parent && (

@@ -1,5 +1,5 @@
 import type { EventBatch } from '../../../core/events/event-batch';
-import { formatTracksTsv, simulateEvents, WAREHOUSE_OBJECT_GROUPS, type TrackRow, type WarehouseObjectGroup } from '../../../core/sim';
+import { DEFAULT_OBJECT_GROUPS, formatTracksTsv, simulateEvents, WAREHOUSE_OBJECT_GROUPS, type TrackRow, type WarehouseObjectGroup } from '../../../core/sim';
 import { outputFormatOf, outputFormats, writeEventFile } from '../../../host/events/event-output';
 import { writeFileDurably } from '../../../host/fs/durable';
 import { CliError, type Command } from '../../command';
@@ -9,8 +9,8 @@ import { noExtraPositionals, requiredNumber, requiredString, sensorOption, senso
 export const eventsSimulateCommand: Command = {
   path: ['events', 'simulate'],
   summary:
-    'Simulate an event camera on the procedural warehouse aisle (forklifts, conveyor parcels, a rotating beacon, a person walking) and write its events and ground-truth tracks',
-  usage: '--scene warehouse --duration S --seed N --out FILE --tracks TRACKS.tsv [--width W --height H] [--objects forklift,conveyor,beacon,person] [--json]',
+    'Simulate an event camera on the procedural warehouse aisle (forklifts, conveyor parcels, a rotating beacon, a person walking; a flickering ceiling light when asked for) and write its events and ground-truth tracks',
+  usage: '--scene warehouse --duration S --seed N --out FILE --tracks TRACKS.tsv [--width W --height H] [--objects forklift,conveyor,beacon,person,flickering-light] [--json]',
   options: { ...sensorOptions, scene: { type: 'string' }, duration: { type: 'string' }, seed: { type: 'string' }, out: { type: 'string' }, tracks: { type: 'string' }, objects: { type: 'string' } },
   async run(context) {
     noExtraPositionals(context, 0);
@@ -38,7 +38,7 @@ export const eventsSimulateCommand: Command = {
       }
       const count = await writeEventFile(out, { sensor, resolution: 'us' }, events());
       await writeFileDurably(tracksPath, formatTracksTsv(tracks));
-      const json = { out, tracks: tracksPath, events: count, track_rows: tracks.length, width: sensor.width, height: sensor.height, duration_s: durationS, seed, objects: objects ?? [...WAREHOUSE_OBJECT_GROUPS] };
+      const json = { out, tracks: tracksPath, events: count, track_rows: tracks.length, width: sensor.width, height: sensor.height, duration_s: durationS, seed, objects: objects ?? [...DEFAULT_OBJECT_GROUPS] };
       return { json, text: `${out}: ${count.toLocaleString('en-GB')} simulated events; ${tracksPath}: ${tracks.length.toLocaleString('en-GB')} track rows` };
     });
   },

@@ -144,9 +144,32 @@ describe('simulateEvents', () => {
     expect(fine).toBeGreaterThan(2 * coarse);
   });
 
+  it('simulates the flickering light: bursts of ON events when it switches on and OFF when it goes out, inside its box', () => {
+    const slices = run({ ...quiet, objects: ['flickering-light'], durationS: 0.5 });
+    const box = tracksOf(slices)[0]!;
+    expect(tracksOf(slices).every((r) => r.kind === 'flickering-light' && r.objectId === 6)).toBe(true);
+    const e = eventsOf(slices);
+    expect(e.t.length).toBeGreaterThan(0.05 * sensor.width * sensor.height * 8);
+    // Switchings at n / 16 s (on for even n), 8 of them up to 0.5 s, each seen between the two frames around it.
+    const counts = Array.from({ length: 9 }, () => 0);
+    for (let i = 0; i < e.t.length; i++) {
+      const n = Math.round(e.t[i]! / 62_500);
+      expect(Math.abs(e.t[i]! - n * 62_500)).toBeLessThan(1000);
+      expect(e.p[i]).toBe(n % 2 === 0 ? 1 : 0);
+      expect(e.x[i]! >= box.x0 && e.x[i]! <= box.x1 && e.y[i]! >= box.y0 && e.y[i]! <= box.y1).toBe(true);
+      counts[n]!++;
+    }
+    expect(counts[0]).toBe(0);
+    expect(counts.slice(1).every((c) => c > 0)).toBe(true);
+  });
+
   it('lists the beacon as the scene flashing part', () => {
     expect(flashingParts({ scene: 'warehouse' })).toEqual([expect.objectContaining({ kind: 'beacon', objectId: 5, flashesPerSecond: 1.5 })]);
     expect(flashingParts({ scene: 'warehouse', objects: ['person'] })).toEqual([]);
+    expect(flashingParts({ scene: 'warehouse', objects: ['beacon', 'flickering-light'] })).toEqual([
+      expect.objectContaining({ kind: 'beacon', objectId: 5, flashesPerSecond: 1.5 }),
+      expect.objectContaining({ kind: 'flickering-light', objectId: 6, flashesPerSecond: 8 }),
+    ]);
   });
 
   it('checks its options at once, naming the bad one', () => {

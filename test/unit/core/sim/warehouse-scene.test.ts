@@ -87,8 +87,51 @@ describe('WarehouseScene rendering', () => {
     expect(warehouseFlashingParts(full, { objects: ['forklift'] })).toEqual([]);
   });
 
+  it('flickers the failing tube on and off 8 times a second, lighting a large part of the aisle', () => {
+    const scene = new WarehouseScene(full, { objects: ['flickering-light'] });
+    const [part] = warehouseFlashingParts(full, { objects: ['flickering-light', 'person'] });
+    expect(part).toMatchObject({ objectId: 6, kind: 'flickering-light', flashesPerSecond: 8 });
+    const row = scene.objectsAt(0)[0]!;
+    expect(row).toMatchObject({ objectId: 6, kind: 'flickering-light' });
+    expect([part!.x0, part!.y0, part!.x1, part!.y1]).toEqual([row.x0, row.y0, row.x1, row.y1]);
+    // Lit for the first half of each 125 ms cycle: switched on at t = n / 8 s, off 62.5 ms later.
+    const lit = frame(scene, 0.03);
+    const dark = frame(scene, 0.09);
+    expect(same(frame(scene, 0.155), lit) && same(frame(scene, 0.215), dark)).toBe(true);
+    const centre = Math.round(row.cy) * full.width + Math.round(row.cx);
+    const brightness = Array.from({ length: 1000 }, (_, k) => frame(scene, k / 1000)[centre]!);
+    const switchedOn = brightness.filter((v, k) => k > 0 && v > brightness[k - 1]!).length;
+    expect(switchedOn).toBe(7); // at 125, 250, ..., 875 ms; lit from t = 0
+    expect(Math.log(brightness[0]! / brightness[100]!)).toBeGreaterThan(0.2); // above the sensor's contrast threshold
+    // Brighter by at least 10 % over more than a tenth of the picture.
+    const brighter = lit.filter((v, i) => v > 1.1 * dark[i]!).length;
+    expect(brighter).toBeGreaterThan(0.1 * lit.length);
+  });
+
+  it('shows the flickering light only when asked for', () => {
+    expect(new WarehouseScene(full).objectsAt(1).some((r) => r.kind === 'flickering-light')).toBe(false);
+    expect(warehouseFlashingParts(full).map((p) => p.kind)).toEqual(['beacon']);
+  });
+
+  it('leaves out of changedRegions an object drawn the same at both instants, and still covers every changed pixel', () => {
+    const scene = new WarehouseScene(full, { objects: ['flickering-light', 'person'] });
+    // Between switchings only the walker moves: one region, the walker's.
+    const [only, ...more] = scene.changedRegions(0.01, 0.011);
+    const walker = scene.objectsAt(0.011).find((r) => r.kind === 'person')!;
+    expect(more).toEqual([]);
+    expect(inside([only!], Math.round(walker.cx), Math.round(walker.cy))).toBe(true);
+    expect(only!.x1 - only!.x0).toBeLessThan(walker.x1 - walker.x0 + 3);
+    for (const [t0, t1] of [[0.062, 0.063], [0.124, 0.125], [0.499, 0.5]] as const) {
+      const a = frame(scene, t0);
+      const b = frame(scene, t1);
+      const rects = scene.changedRegions(t0, t1);
+      expect(rects).toHaveLength(2);
+      for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) expect(inside(rects, i % full.width, Math.floor(i / full.width))).toBe(true);
+    }
+  });
+
   it('rejects unknown object groups and bad times with a RangeError', () => {
-    expect(() => new WarehouseScene(small, { objects: ['crane' as never] })).toThrow(/objects must list some of forklift, conveyor, beacon, person, got crane/);
+    expect(() => new WarehouseScene(small, { objects: ['crane' as never] })).toThrow(/objects must list some of forklift, conveyor, beacon, person, flickering-light, got crane/);
     expect(() => new WarehouseScene(small).objectsAt(-1)).toThrow(/tS must be a finite time >= 0/);
     expect(() => new WarehouseScene(small).render(0, new Float32Array(10))).toThrow(/out must hold 19200 pixels/);
   });

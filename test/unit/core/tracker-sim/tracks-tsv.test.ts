@@ -48,7 +48,7 @@ describe('parseTracksTsv', () => {
     expect(parseError(`${good}0.001\t1\tforklift\tabc\t20\t5\t15\t15\t25\n`).message).toBe('clip/TRACKS.tsv line 3: cx must be a number, got "abc"');
     expect(parseError(`${good}\n0.001\t1\tforklift\t\t20\t5\t15\t15\t25\n`).message).toBe('clip/TRACKS.tsv line 4: cx must be a number, got ""');
     expect(parseError(`${good}0.001\t1.5\tforklift\t10\t20\t5\t15\t15\t25\n`).message).toMatch(/line 3: object_id must be a whole number >= 0, got "1.5"/);
-    expect(parseError(`${good}0.001\t2\ttruck\t10\t20\t5\t15\t15\t25\n`).message).toMatch(/line 3: kind must be one of forklift, parcel, beacon, person, got "truck"/);
+    expect(parseError(`${good}0.001\t2\ttruck\t10\t20\t5\t15\t15\t25\n`).message).toMatch(/line 3: kind must be one of forklift, parcel, beacon, person, flickering-light, got "truck"/);
     expect(parseError(`${good}-0.001\t2\tparcel\t10\t20\t5\t15\t15\t25\n`).message).toMatch(/line 3: t_s must be >= 0/);
     expect(parseError(`${good}0.001\t2\tparcel\t10\t20\t15\t15\t5\t25\n`).message).toMatch(/line 3: x1 \(5\) must be >= x0 \(15\)/);
     expect(parseError(`${good}0.001\t2\tparcel\t10\t20\t5\t25\t15\t15\n`).message).toMatch(/line 3: y1 \(15\) must be >= y0 \(25\)/);
