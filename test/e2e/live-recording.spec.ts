@@ -3,6 +3,7 @@ import { join } from 'node:path';
 import type { Browser, Page } from '@playwright/test';
 import { expect, startHost, stopHost, test, type RunningHost } from './support/browser-mode';
 import { freeUdpPort, gazeloomJson, gazeloomProcess } from './support/gazeloom-cli';
+import { openHostFolder } from './support/host-folder';
 
 /** The stage in a browser window of its own, as browser mode asks (a background tab would be throttled). */
 async function openStage(browser: Browser, host: RunningHost): Promise<Page> {
@@ -43,8 +44,7 @@ test('a clip plays on the stage while the simulated tracker is recorded, and fra
   await page.goto(`${host.url}#/stimuli`);
   await page.getByRole('button', { name: 'Import a recording…' }).click();
   const dialog = page.getByRole('dialog', { name: 'Import a recording' });
-  await dialog.getByLabel('Folder on the host').fill(folder);
-  await dialog.getByRole('button', { name: 'Go' }).click();
+  await openHostFolder(dialog, folder);
   await dialog.getByRole('button', { name: /aisle\.glev/ }).click();
   await dialog.getByRole('button', { name: 'Import', exact: true }).click();
   await expect(dialog.getByRole('status')).toContainText('imported', { timeout: 20_000 });

@@ -5,6 +5,7 @@ import type { MessageRecord } from '../../app/core/recording/records';
 import { readSession } from '../../app/host/recording/read-session';
 import { expect, test, type RunningHost } from './support/browser-mode';
 import { gazeloomJson } from './support/gazeloom-cli';
+import { openHostFolder } from './support/host-folder';
 
 /** The stage in a browser window of its own, as browser mode asks (a background tab would be throttled). */
 async function openStage(browser: Browser, host: RunningHost): Promise<Page> {
@@ -24,9 +25,7 @@ async function importClip(page: Page, host: RunningHost) {
   const dialog = page.getByRole('dialog', { name: 'Import a recording' });
   // The dialog opens at the home folder once the host has listed it; then the field is ours.
   await expect(dialog.getByRole('list', { name: 'Folder contents' })).toBeVisible();
-  await expect(dialog.getByLabel('Folder on the host')).not.toHaveValue('');
-  await dialog.getByLabel('Folder on the host').fill(folder);
-  await dialog.getByRole('button', { name: 'Go' }).click();
+  await openHostFolder(dialog, folder);
   await dialog.getByRole('button', { name: /aisle\.glev/ }).click();
   await dialog.getByRole('button', { name: 'Import', exact: true }).click();
   await expect(dialog.getByRole('status')).toContainText('imported', { timeout: 30_000 });

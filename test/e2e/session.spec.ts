@@ -4,6 +4,7 @@ import type { Browser, Locator, Page } from '@playwright/test';
 import { expect, startHost, stopHost, test, type RunningHost } from './support/browser-mode';
 import { gazeloomJson } from './support/gazeloom-cli';
 import { labRecords, openScreen, PASSPHRASE, registerConsentedParticipant, setUpLab } from './support/lab';
+import { openHostFolder } from './support/host-folder';
 
 
 /** Two short warehouse clips in the library, made by the simulator and imported as a user would. */
@@ -17,8 +18,7 @@ async function importClips(page: Page, host: RunningHost) {
   for (const name of ['forklift', 'conveyor']) {
     await page.getByRole('button', { name: 'Import a recording…' }).click();
     const dialog = page.getByRole('dialog', { name: 'Import a recording' });
-    await dialog.getByLabel('Folder on the host').fill(folder);
-    await dialog.getByRole('button', { name: 'Go' }).click();
+    await openHostFolder(dialog, folder);
     await dialog.getByRole('button', { name: new RegExp(`${name}\\.glev`) }).click();
     await dialog.getByRole('button', { name: 'Import', exact: true }).click();
     await expect(dialog.getByRole('status')).toContainText('imported', { timeout: 20_000 });

@@ -2,6 +2,7 @@ import { writeFileSync, mkdirSync } from 'node:fs';
 import { join } from 'node:path';
 import { expect, test } from './support/browser-mode';
 import type { Page } from '@playwright/test';
+import { openHostFolder } from './support/host-folder';
 
 /** A 64x48 stream: one event at t = 0, a 10x10 block of ON events at 0.5 s, one event at 1 s. */
 function writeBlockClip(dir: string): string {
@@ -16,8 +17,7 @@ function writeBlockClip(dir: string): string {
 async function importFrom(page: Page, folder: string, fileName: string) {
   await page.getByRole('button', { name: 'Import a recording…' }).click();
   const dialog = page.getByRole('dialog', { name: 'Import a recording' });
-  await dialog.getByLabel('Folder on the host').fill(folder);
-  await dialog.getByRole('button', { name: 'Go' }).click();
+  await openHostFolder(dialog, folder);
   await dialog.getByRole('button', { name: new RegExp(fileName) }).click();
   await dialog.getByRole('button', { name: 'Import', exact: true }).click();
   return dialog;
